@@ -1,0 +1,21 @@
+import '@fontsource/inter/400.css';
+import '@fontsource/inter/600.css';
+import '@fontsource/inter/700.css';
+import 'primeicons/primeicons.css';
+import './styles.css';
+import { createPinia } from 'pinia';
+import PrimeVue from 'primevue/config';
+import ToastService from 'primevue/toastservice';
+import ConfirmationService from 'primevue/confirmationservice';
+import { createApp } from 'vue';
+import App from './App.vue';
+import { router } from './router';
+import { LoadlinePreset } from './theme';
+
+const app = createApp(App);
+app.use(createPinia());
+app.use(router);
+app.use(PrimeVue, { theme: { preset: LoadlinePreset, options: { darkModeSelector: '.ll-dark', cssLayer: false } } });
+app.use(ToastService);
+app.use(ConfirmationService);
+app.mount('#app');

@@ -1,0 +1,15 @@
+import type { Page } from '@playwright/test';
+
+export class SignInPage {
+  constructor(private readonly page: Page) {}
+
+  async open() {
+    await this.page.goto('/sign-in');
+  }
+
+  async signIn(email: string, password: string) {
+    await this.page.getByLabel('E-mail').fill(email);
+    await this.page.getByLabel('Password', { exact: true }).fill(password);
+    await this.page.getByRole('button', { name: 'Sign in' }).click();
+  }
+}

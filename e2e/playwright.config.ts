@@ -1,0 +1,50 @@
+import { defineConfig } from '@playwright/test';
+
+const port = Number(process.env.E2E_PORT ?? 8090);
+const databaseUrl = process.env.E2E_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54339/loadline_e2e';
+
+export default defineConfig({
+  testDir: '.',
+  testMatch: '**/*.e2e.ts',
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  timeout: 30_000,
+  expect: { timeout: 7_000 },
+  reporter: [['list'], ['json', { outputFile: '../test-results/e2e.json' }]],
+  outputDir: '../test-results/e2e-artifacts',
+  use: {
+    baseURL: `http://127.0.0.1:${port}`,
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+    launchOptions: {
+      executablePath: process.env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium',
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-dev-shm-usage',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+        '--no-first-run',
+      ],
+    },
+  },
+  webServer: {
+    command: 'npx tsx --tsconfig tsconfig.server.json server/index.ts',
+    cwd: '..',
+    url: `http://127.0.0.1:${port}/api/health`,
+    reuseExistingServer: false,
+    timeout: 60_000,
+    env: {
+      PORT: String(port),
+      DATABASE_URL: databaseUrl,
+      NODE_ENV: 'test',
+      LOG_LEVEL: 'warn',
+      JWT_SECRET: 'e2e-secret-e2e-secret-e2e-secret-e2e-0001',
+      LOGIN_LIMIT_PER_IP: '1000',
+      UPLOAD_DIR: '.data/e2e-uploads',
+    },
+  },
+});

@@ -1,0 +1,39 @@
+#!/usr/bin/env bash
+# npm start: everything the demo needs on a bare machine, then the server in the foreground.
+source "$(dirname "$0")/lib.sh"
+
+export LOADLINE_DB_PORT=${LOADLINE_DB_PORT:-54329}
+export LOADLINE_DB_CLUSTER=${LOADLINE_DB_CLUSTER:-demo}
+export DATABASE_URL=${DATABASE_URL:-postgres://postgres@127.0.0.1:$LOADLINE_DB_PORT/loadline}
+export PORT=${PORT:-8080}
+
+ensure_node_modules
+
+started_db=0
+if ! bash docker-free-db/db.sh status >/dev/null 2>&1; then
+  bash docker-free-db/db.sh start
+  started_db=1
+fi
+cleanup() {
+  [ -n "${server_pid:-}" ] && kill -TERM "$server_pid" 2>/dev/null && wait "$server_pid" 2>/dev/null
+  if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop || true; fi
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+bash docker-free-db/db.sh ensure-db "${DATABASE_URL##*/}" >/dev/null
+tsx_server server/db/migrate.ts
+tsx_server seeds/seed.ts --if-empty
+ensure_client_build
+
+cat <<MSG
+
+  Loadline is starting on http://127.0.0.1:$PORT
+  Demo sign-ins (password: loadline-demo):
+    rider@demo.test   staff@demo.test   warehouse@demo.test   admin@demo.test
+  Press Ctrl-C to stop.
+
+MSG
+tsx_server server/index.ts &
+server_pid=$!
+wait "$server_pid"

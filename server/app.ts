@@ -1,0 +1,82 @@
+import 'reflect-metadata';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import { existsSync } from 'node:fs';
+import { extname, join } from 'node:path';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
+import { getConfig, type Config } from './config';
+import { healthRoutes } from './health/health.routes';
+import { authenticate } from './http/auth';
+import { errorMiddleware, notFoundApi } from './http/error-middleware';
+import { originCheck } from './http/origin-check';
+
+/** Builds the whole app; index.ts listens, tests listen on port 0. */
+export function createApp(config: Config = getConfig()): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // The component library injects its theme as <style> elements at run time.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+        },
+      },
+      // Served over plain HTTP on loopback for the demo; a TLS proxy in front sets HSTS in production.
+      strictTransportSecurity: config.secureCookies,
+    }),
+  );
+  app.use(
+    pinoHttp({
+      level: config.logLevel,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // Headers carry session cookies and tokens; log only what is needed to follow a request.
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url.split('?')[0] }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
+    }),
+  );
+  app.use(cookieParser());
+
+  const api = express.Router();
+  api.use(express.json({ limit: config.bodyLimitBytes }));
+  api.use(originCheck(config));
+  api.use(authenticate(config));
+  api.use('/health', healthRoutes());
+  api.use('/auth', authRoutes(config));
+  api.use('/admin/users', adminUserRoutes());
+  api.use(notFoundApi);
+  app.use('/api', api);
+
+  serveClient(app, config);
+  app.use(errorMiddleware);
+  return app;
+}
+
+function serveClient(app: Express, config: Config): void {
+  const index = join(config.clientDist, 'index.html');
+  if (!existsSync(index)) return;
+  app.use('/assets', express.static(join(config.clientDist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
+  app.use(express.static(config.clientDist, { index: false, maxAge: '1h' }));
+  // Client-side routes get the SPA; a path with an extension is a missing file and stays 404.
+  app.get('/{*splat}', (req, res, next) => {
+    if (extname(req.path)) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

@@ -1,0 +1,126 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const projectRoot = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+
+export interface Config {
+  nodeEnv: 'development' | 'production' | 'test';
+  host: string;
+  port: number;
+  publicOrigin: string;
+  databaseUrl: string;
+  jwtSecret: string;
+  jwtTtlSeconds: number;
+  secureCookies: boolean;
+  bodyLimitBytes: number;
+  logLevel: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';
+  loginLimitPerIp: number;
+  loginLimitPerAccount: number;
+  calcRateLimitPerMinute: number;
+  uploadDir: string;
+  uploadMaxBytes: number;
+  clientDist: string;
+}
+
+export class ConfigError extends Error {
+  constructor(readonly problems: string[]) {
+    super(`Invalid configuration:\n  - ${problems.join('\n  - ')}`);
+  }
+}
+
+type Env = Record<string, string | undefined>;
+
+/** Reads and checks every setting once; throws ConfigError listing every bad value. */
+export function parseConfig(env: Env = process.env): Config {
+  const problems: string[] = [];
+
+  const int = (key: string, fallback: number, min: number, max: number): number => {
+    const raw = env[key];
+    if (raw === undefined || raw === '') return fallback;
+    const n = Number(raw);
+    if (!Number.isInteger(n) || n < min || n > max) {
+      problems.push(`${key} must be a whole number from ${min} to ${max}, got '${raw}'`);
+      return fallback;
+    }
+    return n;
+  };
+  const oneOf = <T extends string>(key: string, fallback: T, allowed: readonly T[]): T => {
+    const raw = env[key];
+    if (raw === undefined || raw === '') return fallback;
+    if (!(allowed as readonly string[]).includes(raw)) {
+      problems.push(`${key} must be one of ${allowed.join(', ')}, got '${raw}'`);
+      return fallback;
+    }
+    return raw as T;
+  };
+  const bool = (key: string, fallback: boolean): boolean => {
+    const raw = env[key];
+    if (raw === undefined || raw === '') return fallback;
+    if (raw === 'true' || raw === '1') return true;
+    if (raw === 'false' || raw === '0') return false;
+    problems.push(`${key} must be true or false, got '${raw}'`);
+    return fallback;
+  };
+
+  const nodeEnv = oneOf('NODE_ENV', 'development', ['development', 'production', 'test'] as const);
+  const host = env.HOST || '127.0.0.1';
+  const port = int('PORT', 8080, 0, 65535);
+  const publicOrigin = env.PUBLIC_ORIGIN || `http://127.0.0.1:${port}`;
+  try {
+    const u = new URL(publicOrigin);
+    if (u.origin !== publicOrigin) problems.push(`PUBLIC_ORIGIN must be an origin like http://127.0.0.1:8080, got '${publicOrigin}'`);
+  } catch {
+    problems.push(`PUBLIC_ORIGIN must be a URL, got '${publicOrigin}'`);
+  }
+  const databaseUrl = env.DATABASE_URL || 'postgres://postgres@127.0.0.1:54329/loadline';
+  if (!/^postgres(ql)?:\/\//.test(databaseUrl)) problems.push('DATABASE_URL must start with postgres://');
+
+  let jwtSecret = env.JWT_SECRET ?? '';
+  if (jwtSecret && jwtSecret.length < 32) problems.push('JWT_SECRET must be at least 32 characters');
+  if (!jwtSecret) {
+    if (nodeEnv === 'production') problems.push('JWT_SECRET is required in production');
+    else jwtSecret = demoSecret();
+  }
+
+  const config: Config = {
+    nodeEnv,
+    host,
+    port,
+    publicOrigin,
+    databaseUrl,
+    jwtSecret,
+    jwtTtlSeconds: int('JWT_TTL_SECONDS', 8 * 3600, 60, 30 * 24 * 3600),
+    secureCookies: bool('SECURE_COOKIES', nodeEnv === 'production'),
+    bodyLimitBytes: int('BODY_LIMIT_BYTES', 4 * 1024 * 1024, 1024, 50 * 1024 * 1024),
+    logLevel: oneOf('LOG_LEVEL', nodeEnv === 'test' ? 'silent' : 'info', ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'] as const),
+    loginLimitPerIp: int('LOGIN_LIMIT_PER_IP', 30, 1, 1_000_000),
+    loginLimitPerAccount: int('LOGIN_LIMIT_PER_ACCOUNT', 8, 1, 1_000_000),
+    calcRateLimitPerMinute: int('CALC_RATE_LIMIT_PER_MINUTE', 600, 1, 100_000_000),
+    uploadDir: resolve(projectRoot, env.UPLOAD_DIR || '.data/uploads'),
+    uploadMaxBytes: int('UPLOAD_MAX_BYTES', 5 * 1024 * 1024, 1024, 100 * 1024 * 1024),
+    clientDist: resolve(projectRoot, env.CLIENT_DIST || 'dist/client'),
+  };
+  if (problems.length) throw new ConfigError(problems);
+  return Object.freeze(config);
+}
+
+// The demo keeps a random secret in a git-ignored file so sign-ins survive a restart.
+function demoSecret(): string {
+  const file = resolve(projectRoot, '.secrets/jwt-secret');
+  if (existsSync(file)) {
+    const s = readFileSync(file, 'utf8').trim();
+    if (s.length >= 32) return s;
+  }
+  const s = randomBytes(48).toString('base64url');
+  mkdirSync(dirname(file), { recursive: true });
+  writeFileSync(file, s + '\n', { mode: 0o600 });
+  return s;
+}
+
+let cached: Config | undefined;
+export function getConfig(): Config {
+  cached ??= parseConfig();
+  return cached;
+}

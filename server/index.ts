@@ -1,0 +1,48 @@
+import 'reflect-metadata';
+import { createApp } from './app';
+import { ConfigError, getConfig } from './config';
+import { AppDataSource } from './db/data-source';
+
+let config;
+try {
+  config = getConfig();
+} catch (e) {
+  if (e instanceof ConfigError) {
+    console.error(e.message);
+    process.exit(2);
+  }
+  throw e;
+}
+
+// The database may still be starting; try for a while before giving up.
+for (let attempt = 1; ; attempt++) {
+  try {
+    await AppDataSource.initialize();
+    break;
+  } catch (e) {
+    if (attempt >= 15) {
+      console.error(`Cannot reach the database at ${config.databaseUrl.replace(/:[^:@/]+@/, ':***@')}: ${(e as Error).message}`);
+      process.exit(1);
+    }
+    await new Promise((r) => setTimeout(r, 1000));
+  }
+}
+
+const app = createApp(config);
+const server = app.listen(config.port, config.host, () => {
+  console.log(`Loadline is serving on http://${config.host}:${config.port}`);
+});
+
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  console.log(`${signal} received, stopping…`);
+  server.close();
+  server.closeIdleConnections();
+  setTimeout(() => server.closeAllConnections(), 3000).unref();
+  await AppDataSource.destroy().catch(() => undefined);
+  process.exit(0);
+}
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('SIGINT', () => void shutdown('SIGINT'));
