@@ -1,0 +1,491 @@
+import { Type } from 'class-transformer';
+import {
+  ArrayMaxSize,
+  ArrayMinSize,
+  IsArray,
+  IsIn,
+  IsInt,
+  IsNumber,
+  IsOptional,
+  IsString,
+  Length,
+  Matches,
+  Max,
+  MaxLength,
+  Min,
+  ValidateIf,
+  ValidateNested,
+} from 'class-validator';
+import { isIn, loadStationKinds, PageQueryDto, sortValues, type LoadStationKind, type RateInUnitsDto } from './common';
+
+// ---------- responses ----------
+
+/** One row of the bike picker and of the staff fitment table. */
+export interface FitmentSummaryDto {
+  id: string;
+  make: string;
+  model: string;
+  /** Trim or version within the model, '' when there is only one. */
+  variant: string;
+  yearFrom: number;
+  yearTo: number;
+  updatedAt: string;
+}
+
+export interface LoadStationDto {
+  station: LoadStationKind;
+  /** Rearward from the front axle, mm; beyond the wheelbase is behind the rear axle. */
+  positionMm: number;
+  maxLoadKg: number;
+}
+
+export interface LeveragePointDto {
+  wheelTravelMm: number;
+  ratio: number;
+}
+
+export interface SagPairDto {
+  static: number;
+  rider: number;
+}
+
+/** Sag targets of one end by riding style, in mm or in % of that end's travel. */
+export interface SagEndDto {
+  unit: 'mm' | 'pct';
+  road: SagPairDto;
+  adventure: SagPairDto;
+  offRoad: SagPairDto;
+}
+
+export interface TorqueDto {
+  fastener: string;
+  torqueNm: number;
+}
+
+/** Stored in N·m; ft·lbf is given beside it for the setup sheet. */
+export interface TorqueOutDto extends TorqueDto {
+  torqueFtLbf: number;
+}
+
+/** Everything the engine needs about one bike variant. All quantities SI: kg, mm, N/mm, degrees, N·m. */
+export interface FitmentDto extends FitmentSummaryDto {
+  /** 'sprung': the sprung masses were entered; 'wet': derived from wet mass, front share and unsprung masses. */
+  massInput: 'sprung' | 'wet';
+  frontSprungMassKg: number;
+  rearSprungMassKg: number;
+  wetMassKg: number | null;
+  frontStaticSharePct: number | null;
+  frontUnsprungMassKg: number | null;
+  rearUnsprungMassKg: number | null;
+  /** Most the bike may carry on top of itself (riders, gear, luggage), kg. */
+  ratedLoadKg: number;
+  wheelbaseMm: number;
+  loadStations: LoadStationDto[];
+  /** Exactly one of rearLeverageRatio and rearLeverageCurve is set. */
+  rearLeverageRatio: number | null;
+  rearLeverageCurve: LeveragePointDto[] | null;
+  rearWheelTravelMm: number;
+  shockStrokeMm: number;
+  rearPreloadMinMm: number;
+  rearPreloadMaxMm: number;
+  rearAdjusterPitchMm: number;
+  shockSpringInnerDiameterMm: number;
+  shockSpringFreeLengthMinMm: number;
+  shockSpringFreeLengthMaxMm: number;
+  forkAngleDeg: number;
+  forkTravelMm: number;
+  forkSpringCount: number;
+  forkPreloadMinMm: number;
+  forkPreloadMaxMm: number;
+  /** null for forks without a preload adjuster. */
+  forkAdjusterPitchMm: number | null;
+  forkSpringInnerDiameterMm: number;
+  forkSpringFreeLengthMinMm: number;
+  forkSpringFreeLengthMaxMm: number;
+  sag: { front: SagEndDto; rear: SagEndDto };
+  stockForkRateNPerMm: number;
+  stockForkFreeLengthMm: number;
+  stockShockRateNPerMm: number;
+  stockShockFreeLengthMm: number;
+  stockForkRate: RateInUnitsDto;
+  stockShockRate: RateInUnitsDto;
+  torques: TorqueOutDto[];
+  tools: string[];
+  notes: string;
+}
+
+/** Makes and their models, for the picker's first two selects. */
+export interface MakeDto {
+  make: string;
+  models: string[];
+}
+
+// ---------- requests ----------
+
+export const fitmentSortFields = ['make', 'model', 'yearFrom', 'yearTo', 'updatedAt'] as const;
+
+/** GET /api/fitments and GET /api/staff/fitments query. */
+export class FitmentListQueryDto extends PageQueryDto {
+  @IsOptional()
+  @IsString({ message: 'Make is text.' })
+  @MaxLength(60, { message: 'Make has at most 60 characters.' })
+  make?: string;
+
+  @IsOptional()
+  @IsString({ message: 'Model is text.' })
+  @MaxLength(60, { message: 'Model has at most 60 characters.' })
+  model?: string;
+
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'Year is a whole number.' })
+  @Min(1950, { message: 'Year is from 1950.' })
+  @Max(2100, { message: 'Year is at most 2100.' })
+  year?: number;
+
+  /** Free text matched against make, model and variant. */
+  @IsOptional()
+  @IsString({ message: 'Search is text.' })
+  @MaxLength(100, { message: 'Search has at most 100 characters.' })
+  q?: string;
+
+  @IsOptional()
+  @IsIn(sortValues(fitmentSortFields), { message: `Sort is one of ${sortValues(fitmentSortFields).join(', ')}.` })
+  sort?: string;
+}
+
+const num = (what: string) => IsNumber({ allowNaN: false, allowInfinity: false }, { message: `${what} is a number.` });
+const range = (min: number, max: number, unit: string) => [
+  Min(min, { message: `Must be at least ${min} ${unit}.` }),
+  Max(max, { message: `Must be at most ${max} ${unit}.` }),
+];
+function InRange(min: number, max: number, unit: string): PropertyDecorator {
+  return (target, key) => {
+    for (const d of range(min, max, unit)) d(target, key);
+  };
+}
+
+export class LoadStationInputDto {
+  @isIn(loadStationKinds, 'Station')
+  station!: LoadStationKind;
+
+  @num('Position')
+  @InRange(0, 2500, 'mm')
+  positionMm!: number;
+
+  @num('Maximum load')
+  @InRange(1, 250, 'kg')
+  maxLoadKg!: number;
+}
+
+export class LeveragePointInputDto {
+  @num('Wheel travel')
+  @InRange(0, 400, 'mm')
+  wheelTravelMm!: number;
+
+  @num('Ratio')
+  @InRange(1, 5, '')
+  ratio!: number;
+}
+
+export class SagPairInputDto {
+  @num('Static sag')
+  @InRange(0, 200, 'mm or %')
+  static!: number;
+
+  @num('Rider sag')
+  @InRange(1, 200, 'mm or %')
+  rider!: number;
+}
+
+export class SagEndInputDto {
+  @IsIn(['mm', 'pct'], { message: 'Unit is mm or pct.' })
+  unit!: 'mm' | 'pct';
+
+  @ValidateNested()
+  @Type(() => SagPairInputDto)
+  road!: SagPairInputDto;
+
+  @ValidateNested()
+  @Type(() => SagPairInputDto)
+  adventure!: SagPairInputDto;
+
+  @ValidateNested()
+  @Type(() => SagPairInputDto)
+  offRoad!: SagPairInputDto;
+}
+
+export class SagInputDto {
+  @ValidateNested()
+  @Type(() => SagEndInputDto)
+  front!: SagEndInputDto;
+
+  @ValidateNested()
+  @Type(() => SagEndInputDto)
+  rear!: SagEndInputDto;
+}
+
+/** Names used inside the CSV's "a=1 | b=2" cells may not contain those separators. */
+const listItem = /^[^|=\r\n]+$/;
+
+export class TorqueInputDto {
+  @IsString({ message: 'Name the fastener.' })
+  @Length(1, 80, { message: 'A fastener name has 1 to 80 characters.' })
+  @Matches(listItem, { message: 'A fastener name may not contain | or =.' })
+  fastener!: string;
+
+  @num('Torque')
+  @InRange(0.5, 500, 'N·m')
+  torqueNm!: number;
+}
+
+/**
+ * POST /api/staff/fitments and PUT /api/staff/fitments/:id body (a full replacement).
+ * Cross-field rules (year order, windows, sag below travel, mass mode) are in `fitmentProblems`.
+ */
+export class FitmentInputDto {
+  @IsString({ message: 'Enter the make.' })
+  @Length(1, 60, { message: 'A make has 1 to 60 characters.' })
+  make!: string;
+
+  @IsString({ message: 'Enter the model.' })
+  @Length(1, 60, { message: 'A model has 1 to 60 characters.' })
+  model!: string;
+
+  @IsOptional()
+  @IsString({ message: 'Variant is text.' })
+  @MaxLength(60, { message: 'A variant has at most 60 characters.' })
+  variant?: string;
+
+  @IsInt({ message: 'First year is a whole number.' })
+  @InRange(1950, 2100, '')
+  yearFrom!: number;
+
+  @IsInt({ message: 'Last year is a whole number.' })
+  @InRange(1950, 2100, '')
+  yearTo!: number;
+
+  @IsIn(['sprung', 'wet'], { message: 'Mass input is sprung or wet.' })
+  massInput!: 'sprung' | 'wet';
+
+  @ValidateIf((o: FitmentInputDto) => o.massInput !== 'wet' || o.frontSprungMassKg != null)
+  @num('Front sprung mass')
+  @InRange(20, 400, 'kg')
+  frontSprungMassKg?: number | null;
+
+  @ValidateIf((o: FitmentInputDto) => o.massInput !== 'wet' || o.rearSprungMassKg != null)
+  @num('Rear sprung mass')
+  @InRange(20, 400, 'kg')
+  rearSprungMassKg?: number | null;
+
+  @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.wetMassKg != null)
+  @num('Wet mass')
+  @InRange(80, 600, 'kg')
+  wetMassKg?: number | null;
+
+  @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.frontStaticSharePct != null)
+  @num('Front share')
+  @InRange(30, 70, '%')
+  frontStaticSharePct?: number | null;
+
+  @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.frontUnsprungMassKg != null)
+  @num('Front unsprung mass')
+  @InRange(5, 60, 'kg')
+  frontUnsprungMassKg?: number | null;
+
+  @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.rearUnsprungMassKg != null)
+  @num('Rear unsprung mass')
+  @InRange(5, 60, 'kg')
+  rearUnsprungMassKg?: number | null;
+
+  @num('Rated load')
+  @InRange(50, 400, 'kg')
+  ratedLoadKg!: number;
+
+  @num('Wheelbase')
+  @InRange(1000, 2000, 'mm')
+  wheelbaseMm!: number;
+
+  @IsArray({ message: 'Load stations are a list.' })
+  @ArrayMinSize(1, { message: 'Give at least the rider seat.' })
+  @ArrayMaxSize(5, { message: 'At most one of each of the five stations.' })
+  @ValidateNested({ each: true })
+  @Type(() => LoadStationInputDto)
+  loadStations!: LoadStationInputDto[];
+
+  @ValidateIf((o: FitmentInputDto) => o.rearLeverageCurve == null)
+  @num('Leverage ratio')
+  @InRange(1, 5, '')
+  rearLeverageRatio?: number | null;
+
+  @ValidateIf((o: FitmentInputDto) => o.rearLeverageCurve != null)
+  @IsArray({ message: 'The leverage curve is a list of points.' })
+  @ArrayMinSize(2, { message: 'A curve has at least 2 points.' })
+  @ArrayMaxSize(30, { message: 'A curve has at most 30 points.' })
+  @ValidateNested({ each: true })
+  @Type(() => LeveragePointInputDto)
+  rearLeverageCurve?: LeveragePointInputDto[] | null;
+
+  @num('Rear wheel travel')
+  @InRange(50, 350, 'mm')
+  rearWheelTravelMm!: number;
+
+  @num('Shock stroke')
+  @InRange(20, 150, 'mm')
+  shockStrokeMm!: number;
+
+  @num('Rear preload minimum')
+  @InRange(0, 40, 'mm')
+  rearPreloadMinMm!: number;
+
+  @num('Rear preload maximum')
+  @InRange(0, 40, 'mm')
+  rearPreloadMaxMm!: number;
+
+  @num('Adjuster pitch')
+  @InRange(0.1, 5, 'mm per turn')
+  rearAdjusterPitchMm!: number;
+
+  @num('Shock spring inner diameter')
+  @InRange(10, 100, 'mm')
+  shockSpringInnerDiameterMm!: number;
+
+  @num('Shock spring shortest free length')
+  @InRange(50, 700, 'mm')
+  shockSpringFreeLengthMinMm!: number;
+
+  @num('Shock spring longest free length')
+  @InRange(50, 700, 'mm')
+  shockSpringFreeLengthMaxMm!: number;
+
+  @num('Fork angle')
+  @InRange(0, 40, '°')
+  forkAngleDeg!: number;
+
+  @num('Fork travel')
+  @InRange(50, 350, 'mm')
+  forkTravelMm!: number;
+
+  @IsInt({ message: 'Number of fork springs is 1 or 2.' })
+  @InRange(1, 2, 'springs')
+  forkSpringCount!: number;
+
+  @num('Fork preload minimum')
+  @InRange(0, 40, 'mm')
+  forkPreloadMinMm!: number;
+
+  @num('Fork preload maximum')
+  @InRange(0, 40, 'mm')
+  forkPreloadMaxMm!: number;
+
+  @IsOptional()
+  @num('Fork adjuster pitch')
+  @InRange(0.1, 5, 'mm per turn')
+  forkAdjusterPitchMm?: number | null;
+
+  @num('Fork spring inner diameter')
+  @InRange(10, 100, 'mm')
+  forkSpringInnerDiameterMm!: number;
+
+  @num('Fork spring shortest free length')
+  @InRange(50, 700, 'mm')
+  forkSpringFreeLengthMinMm!: number;
+
+  @num('Fork spring longest free length')
+  @InRange(50, 700, 'mm')
+  forkSpringFreeLengthMaxMm!: number;
+
+  @ValidateNested()
+  @Type(() => SagInputDto)
+  sag!: SagInputDto;
+
+  @num('Stock fork spring rate')
+  @InRange(1, 300, 'N/mm')
+  stockForkRateNPerMm!: number;
+
+  @num('Stock fork spring free length')
+  @InRange(50, 700, 'mm')
+  stockForkFreeLengthMm!: number;
+
+  @num('Stock shock spring rate')
+  @InRange(1, 300, 'N/mm')
+  stockShockRateNPerMm!: number;
+
+  @num('Stock shock spring free length')
+  @InRange(50, 700, 'mm')
+  stockShockFreeLengthMm!: number;
+
+  @IsOptional()
+  @IsArray({ message: 'Torques are a list.' })
+  @ArrayMaxSize(30, { message: 'At most 30 torque values.' })
+  @ValidateNested({ each: true })
+  @Type(() => TorqueInputDto)
+  torques?: TorqueInputDto[];
+
+  @IsOptional()
+  @IsArray({ message: 'Tools are a list.' })
+  @ArrayMaxSize(30, { message: 'At most 30 tools.' })
+  @IsString({ each: true, message: 'Each tool is text.' })
+  @Length(1, 80, { each: true, message: 'A tool name has 1 to 80 characters.' })
+  @Matches(listItem, { each: true, message: 'A tool name may not contain | or =.' })
+  tools?: string[];
+
+  @IsOptional()
+  @IsString({ message: 'Notes are text.' })
+  @MaxLength(4000, { message: 'Notes have at most 4000 characters.' })
+  notes?: string;
+}
+
+/** Derived sprung masses from wet mass, static front share and unsprung masses, kg. */
+export function sprungFromWet(wetMassKg: number, frontSharePct: number, frontUnsprungKg: number, rearUnsprungKg: number) {
+  return {
+    frontSprungMassKg: (wetMassKg * frontSharePct) / 100 - frontUnsprungKg,
+    rearSprungMassKg: (wetMassKg * (100 - frontSharePct)) / 100 - rearUnsprungKg,
+  };
+}
+
+/**
+ * Rules across fields that class-validator cannot say per field; returns `{field: message}`, empty when fine.
+ * @example fitmentProblems({ ...input, yearTo: input.yearFrom - 1 }) // { yearTo: 'The last year is not before the first.' }
+ */
+export function fitmentProblems(f: FitmentInputDto): Record<string, string> {
+  const p: Record<string, string> = {};
+  if (f.yearTo < f.yearFrom) p.yearTo = 'The last year is not before the first.';
+  if (f.rearLeverageRatio != null && f.rearLeverageCurve != null) p.rearLeverageCurve = 'Give a single leverage ratio or a curve, not both.';
+  if (f.rearPreloadMaxMm < f.rearPreloadMinMm) p.rearPreloadMaxMm = 'The maximum is not below the minimum.';
+  if (f.forkPreloadMaxMm < f.forkPreloadMinMm) p.forkPreloadMaxMm = 'The maximum is not below the minimum.';
+  if (f.shockSpringFreeLengthMaxMm < f.shockSpringFreeLengthMinMm) p.shockSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
+  if (f.forkSpringFreeLengthMaxMm < f.forkSpringFreeLengthMinMm) p.forkSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
+  const ratio = f.rearWheelTravelMm / f.shockStrokeMm;
+  if (ratio < 1 || ratio > 5) p.shockStrokeMm = 'Wheel travel over shock stroke should be between 1 and 5.';
+  if (f.rearLeverageCurve) {
+    f.rearLeverageCurve.forEach((pt, i) => {
+      const prev = f.rearLeverageCurve?.[i - 1];
+      if (prev && !(pt.wheelTravelMm > prev.wheelTravelMm)) p[`rearLeverageCurve.${i}.wheelTravelMm`] = 'Points go in increasing wheel travel.';
+    });
+  }
+  const seen = new Set<string>();
+  f.loadStations.forEach((s, i) => {
+    if (seen.has(s.station)) p[`loadStations.${i}.station`] = 'Each station appears once.';
+    seen.add(s.station);
+  });
+  if (!seen.has('rider')) p.loadStations = 'The rider seat is needed.';
+  if (f.massInput === 'wet' && f.wetMassKg != null && f.frontStaticSharePct != null && f.frontUnsprungMassKg != null && f.rearUnsprungMassKg != null) {
+    const s = sprungFromWet(f.wetMassKg, f.frontStaticSharePct, f.frontUnsprungMassKg, f.rearUnsprungMassKg);
+    if (s.frontSprungMassKg < 20) p.frontUnsprungMassKg = 'This leaves less than 20 kg sprung on the front.';
+    if (s.rearSprungMassKg < 20) p.rearUnsprungMassKg = 'This leaves less than 20 kg sprung on the rear.';
+  }
+  for (const end of ['front', 'rear'] as const) {
+    const e = f.sag?.[end];
+    if (!e) continue;
+    const travel = end === 'front' ? f.forkTravelMm : f.rearWheelTravelMm;
+    for (const style of ['road', 'adventure', 'offRoad'] as const) {
+      const pair = e[style];
+      if (!pair) continue;
+      const riderMm = e.unit === 'pct' ? (pair.rider / 100) * travel : pair.rider;
+      if (pair.static >= pair.rider) p[`sag.${end}.${style}.static`] = 'Static sag is less than rider sag.';
+      if (riderMm >= travel * 0.6) p[`sag.${end}.${style}.rider`] = 'Rider sag is less than 60 % of the travel.';
+    }
+  }
+  return p;
+}

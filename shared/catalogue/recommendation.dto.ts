@@ -1,0 +1,183 @@
+import { Type } from 'class-transformer';
+import {
+  ArrayMaxSize,
+  ArrayMinSize,
+  IsArray,
+  IsNumber,
+  IsOptional,
+  IsString,
+  IsUUID,
+  Length,
+  Max,
+  Min,
+  ValidateNested,
+} from 'class-validator';
+import type { AdapterNeedDto } from './compatibility.dto';
+import { isIn, loadStationKinds, ridingStyles, type CurrencyCode, type LoadStationKind, type RateInUnitsDto, type RidingStyle } from './common';
+import type { FitmentSummaryDto } from './fitment.dto';
+
+// ---------- request ----------
+
+const num = (what: string) => IsNumber({ allowNaN: false, allowInfinity: false }, { message: `${what} is a number (kg).` });
+
+export class RiderInputDto {
+  @num('Rider mass')
+  @Min(20, { message: 'Rider mass is at least 20 kg.' })
+  @Max(250, { message: 'Rider mass is at most 250 kg.' })
+  massKg!: number;
+
+  @num('Gear mass')
+  @Min(0, { message: 'Gear mass is not negative.' })
+  @Max(50, { message: 'Gear mass is at most 50 kg.' })
+  gearKg!: number;
+}
+
+export class LuggageInputDto {
+  @isIn(loadStationKinds.filter((s) => s !== 'rider' && s !== 'passenger'), 'Luggage station')
+  station!: Exclude<LoadStationKind, 'rider' | 'passenger'>;
+
+  @num('Luggage mass')
+  @Min(0, { message: 'Luggage mass is not negative.' })
+  @Max(250, { message: 'Luggage mass is at most 250 kg.' })
+  massKg!: number;
+}
+
+/** One named load set, e.g. "two-up touring". */
+export class LoadCaseInputDto {
+  @IsString({ message: 'Name the case.' })
+  @Length(1, 60, { message: 'A case name has 1 to 60 characters.' })
+  name!: string;
+
+  @ValidateNested()
+  @Type(() => RiderInputDto)
+  rider!: RiderInputDto;
+
+  @IsOptional()
+  @num('Passenger mass')
+  @Min(0, { message: 'Passenger mass is not negative.' })
+  @Max(250, { message: 'Passenger mass is at most 250 kg.' })
+  passengerKg?: number;
+
+  @IsOptional()
+  @IsArray({ message: 'Luggage is a list.' })
+  @ArrayMaxSize(10, { message: 'At most 10 pieces of luggage.' })
+  @ValidateNested({ each: true })
+  @Type(() => LuggageInputDto)
+  luggage?: LuggageInputDto[];
+}
+
+/**
+ * POST /api/recommendations body. With `cases`, the top-level load is evaluated as a case named
+ * "as entered" followed by the given cases, and `fork`/`shock` come in the cases shape.
+ */
+export class RecommendationRequestDto {
+  @IsUUID('all', { message: 'Choose a bike.' })
+  fitmentId!: string;
+
+  @isIn(ridingStyles, 'Riding style')
+  ridingStyle!: RidingStyle;
+
+  @ValidateNested()
+  @Type(() => RiderInputDto)
+  rider!: RiderInputDto;
+
+  @IsOptional()
+  @num('Passenger mass')
+  @Min(0, { message: 'Passenger mass is not negative.' })
+  @Max(250, { message: 'Passenger mass is at most 250 kg.' })
+  passengerKg?: number;
+
+  @IsOptional()
+  @IsArray({ message: 'Luggage is a list.' })
+  @ArrayMaxSize(10, { message: 'At most 10 pieces of luggage.' })
+  @ValidateNested({ each: true })
+  @Type(() => LuggageInputDto)
+  luggage?: LuggageInputDto[];
+
+  @IsOptional()
+  @IsArray({ message: 'Cases are a list.' })
+  @ArrayMinSize(1, { message: 'Give at least one case, or leave cases out.' })
+  @ArrayMaxSize(5, { message: 'At most 5 cases.' })
+  @ValidateNested({ each: true })
+  @Type(() => LoadCaseInputDto)
+  cases?: LoadCaseInputDto[];
+}
+
+export const asEnteredCaseName = 'as entered';
+
+// ---------- response (the engine's fork-spring / rear-spring shapes, enriched) ----------
+
+export type SpringVerdictDto = 'ok' | 'too-soft' | 'too-stiff' | 'coil-bind';
+
+/** The engine's answer for one spring. */
+export interface SpringCandidateDto {
+  id: string;
+  rateNPerMm: number;
+  preloadNeededMm: number;
+  preloadMm: number;
+  adjusterTurns?: number;
+  installedLengthMm: number;
+  staticSagMm: number;
+  riderSagMm: number;
+  coilBindMarginMm?: number;
+  verdict: SpringVerdictDto;
+}
+
+/** A catalogue spring's answer: `id` is the product id. */
+export interface RecommendedSpringDto extends SpringCandidateDto {
+  sku: string;
+  name: string;
+  priceCents: number;
+  currency: CurrencyCode;
+  inStock: boolean;
+  freeLengthMm: number;
+  /** Adapters this spring needs on this bike; they go in the cart with it. */
+  adapters: AdapterNeedDto[];
+}
+
+interface EndCommon {
+  bikeLoadN: number;
+  /** Per spring for the fork. */
+  requiredRate: RateInUnitsDto;
+  /** Best first: ok ones closest to the required rate. */
+  candidates: RecommendedSpringDto[];
+  /** The bike's stock spring through the same engine, for comparison (id 'stock'). */
+  stock: SpringCandidateDto;
+}
+
+export interface ForkRecommendationDto extends EndCommon {
+  frontLoadN: number;
+}
+
+export interface ShockRecommendationDto extends EndCommon {
+  rearLoadN: number;
+}
+
+/** The engine's cases shape: `coversAllCases` lists product ids ok in every case. */
+export interface CasesRecommendationDto<R> {
+  cases: Array<{ name: string } & R>;
+  coversAllCases: string[];
+  uncoveredBy: Record<string, string>;
+}
+
+export interface ResolvedLoadDto {
+  station: LoadStationKind;
+  massKg: number;
+  positionMm: number;
+}
+
+export interface RecommendationDto {
+  fitment: FitmentSummaryDto;
+  ridingStyle: RidingStyle;
+  /** The sag targets used, mm (converted from % of travel where the fitment keeps them so). */
+  targets: { fork: { staticSagMm: number; riderSagMm: number }; shock: { staticSagMm: number; riderSagMm: number } };
+  /** The top-level load as placed on the bike's stations. */
+  loads: ResolvedLoadDto[];
+  fork: ForkRecommendationDto | CasesRecommendationDto<ForkRecommendationDto>;
+  shock: ShockRecommendationDto | CasesRecommendationDto<ShockRecommendationDto>;
+}
+
+/** Tells the cases shape from the single-load one. */
+export function isCasesRecommendation<R>(x: R | CasesRecommendationDto<R>): x is CasesRecommendationDto<R> {
+  return typeof x === 'object' && x !== null && 'cases' in x;
+}
