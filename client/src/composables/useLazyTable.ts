@@ -1,5 +1,5 @@
 import type { DataTableFilterEvent, DataTableFilterMeta, DataTableFilterMetaData, DataTablePageEvent, DataTableSortEvent } from 'primevue/datatable';
-import { onMounted, ref, shallowRef, type Ref } from 'vue';
+import { onBeforeUnmount, onMounted, ref, shallowRef, type Ref } from 'vue';
 import { ApiError } from '../api/client';
 
 /** One page request as the server understands it: 1-based page, a sort and plain text filters. */
@@ -20,8 +20,10 @@ export interface LazyTableOptions {
   pageSize?: number;
   sortField?: string;
   sortOrder?: 1 | -1;
-  /** Filterable fields, each with its DataTable match mode (the server decides how to match). */
+  /** Column filters shown in the table's filter row (the server decides how to match). */
   filterFields?: string[];
+  /** Query parameter of the free-text search box, when the list has one. */
+  searchParam?: string;
 }
 
 /** State and handlers for a PrimeVue DataTable in lazy mode: the server pages, sorts and filters. */
@@ -37,6 +39,8 @@ export function useLazyTable<T>(load: (query: TableQuery) => Promise<TablePage<T
   const filters = ref<DataTableFilterMeta>(
     Object.fromEntries((options.filterFields ?? []).map((f) => [f, { value: null, matchMode: 'contains' } satisfies DataTableFilterMetaData])),
   );
+  const search = ref('');
+  let searchTimer: ReturnType<typeof setTimeout> | undefined;
   // Only the newest request may write the table, so a slow early answer cannot overwrite a later one.
   let generation = 0;
 
@@ -46,6 +50,7 @@ export function useLazyTable<T>(load: (query: TableQuery) => Promise<TablePage<T
       const value = typeof meta === 'object' && 'value' in meta ? meta.value : undefined;
       if (value !== null && value !== undefined && String(value).trim() !== '') textFilters[field] = String(value).trim();
     }
+    if (options.searchParam && search.value.trim()) textFilters[options.searchParam] = search.value.trim();
     return {
       page: Math.floor(first.value / rows.value) + 1,
       pageSize: rows.value,
@@ -91,9 +96,19 @@ export function useLazyTable<T>(load: (query: TableQuery) => Promise<TablePage<T
     void reload();
   }
 
-  onMounted(reload);
+  /** For the search box: waits for a pause in typing before asking the server. */
+  function searchSoon() {
+    clearTimeout(searchTimer);
+    searchTimer = setTimeout(() => {
+      first.value = 0;
+      void reload();
+    }, 350);
+  }
 
-  return { items, total, loading, error, first, rows, sortField, sortOrder, filters, reload, onPage, onSort, onFilter, query };
+  onMounted(reload);
+  onBeforeUnmount(() => clearTimeout(searchTimer));
+
+  return { items, total, loading, error, first, rows, sortField, sortOrder, filters, search, reload, onPage, onSort, onFilter, searchSoon, query };
 }
 
 /** Appends a table query to a path as the list routes expect it (`?page=&pageSize=&sort=[-]field&<field>=`). */

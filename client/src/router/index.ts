@@ -1,4 +1,4 @@
-import { createRouter, createWebHistory, type RouteLocationRaw, type RouteRecordRaw } from 'vue-router';
+import { createRouter, createWebHistory, type LocationQueryRaw, type RouteLocationRaw, type RouteParamsRaw, type RouteRecordRaw } from 'vue-router';
 import type { Area } from '@shared/roles';
 import AppShell from '../layouts/AppShell.vue';
 import HomePage from '../pages/shop/HomePage.vue';
@@ -28,7 +28,7 @@ export const routeNames = [
 export type RouteName = (typeof routeNames)[number];
 
 /** A typed link target, so a link cannot name a route that does not exist. */
-export function to(name: RouteName, extra: Omit<Exclude<RouteLocationRaw, string>, 'name'> = {}): RouteLocationRaw {
+export function to(name: RouteName, extra: { params?: RouteParamsRaw; query?: LocationQueryRaw; hash?: string; replace?: boolean } = {}): RouteLocationRaw {
   return { ...extra, name } as RouteLocationRaw;
 }
 
