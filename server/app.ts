@@ -7,6 +7,7 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
 import { getConfig, type Config } from './config';
+import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
 import { authenticate } from './http/auth';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
@@ -60,6 +61,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/health', healthRoutes());
   api.use('/auth', authRoutes(config));
   api.use('/admin/users', adminUserRoutes());
+  api.use('/calculations', calculationRoutes(config));
   api.use(notFoundApi);
   app.use('/api', api);
 
