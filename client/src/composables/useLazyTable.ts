@@ -112,11 +112,11 @@ export function useLazyTable<T>(load: (query: TableQuery) => Promise<TablePage<T
 }
 
 /** Appends a table query to a path as the list routes expect it (`?page=&pageSize=&sort=[-]field&<field>=`). */
-export function withTableQuery(path: string, q: TableQuery, extra: Record<string, string | undefined> = {}): string {
+export function withTableQuery(path: string, q: TableQuery, extra: Record<string, string | null | undefined> = {}): string {
   const params = new URLSearchParams();
   params.set('page', String(q.page));
   params.set('pageSize', String(q.pageSize));
   if (q.sort) params.set('sort', q.order === 'desc' ? `-${q.sort}` : q.sort);
-  for (const [k, v] of Object.entries({ ...q.filters, ...extra })) if (v !== undefined && v !== '') params.set(k, v);
+  for (const [k, v] of Object.entries({ ...q.filters, ...extra })) if (v !== undefined && v !== null && v !== '') params.set(k, v);
   return `${path}?${params.toString()}`;
 }
