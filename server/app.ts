@@ -6,9 +6,11 @@ import { extname, join } from 'node:path';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
+import { auditRoutes } from './audit/audit.routes';
 import { getConfig, type Config } from './config';
 import { healthRoutes } from './health/health.routes';
 import { authenticate } from './http/auth';
+import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
 import { originCheck } from './http/origin-check';
 
@@ -60,6 +62,9 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/health', healthRoutes());
   api.use('/auth', authRoutes(config));
   api.use('/admin/users', adminUserRoutes());
+  api.use('/fitments', publicFitmentRoutes());
+  api.use('/staff/fitments', staffFitmentRoutes(config.csvImportMaxBytes));
+  api.use('/staff/audit', auditRoutes());
   api.use(notFoundApi);
   app.use('/api', api);
 
