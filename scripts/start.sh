@@ -14,9 +14,11 @@ if ! bash docker-free-db/db.sh status >/dev/null 2>&1; then
   bash docker-free-db/db.sh start
   started_db=1
 fi
+# Stops only what this run started; a database that was already up stays up.
 cleanup() {
-  [ -n "${server_pid:-}" ] && kill -TERM "$server_pid" 2>/dev/null && wait "$server_pid" 2>/dev/null
-  if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop || true; fi
+  set +e
+  if [ -n "${server_pid:-}" ]; then kill -TERM "$server_pid" 2>/dev/null; wait "$server_pid" 2>/dev/null; fi
+  if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop; fi
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM

@@ -17,7 +17,7 @@ if ! bash docker-free-db/db.sh status >/dev/null 2>&1; then
   bash docker-free-db/db.sh start
   started_db=1
 fi
-trap '[ "$started_db" = 1 ] && bash docker-free-db/db.sh stop >/dev/null' EXIT
+trap 'if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop >/dev/null || true; fi' EXIT
 
 rm -rf test-results && mkdir -p test-results
 bash docker-free-db/db.sh ensure-db loadline_test >/dev/null

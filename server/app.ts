@@ -8,6 +8,7 @@ import { pinoHttp } from 'pino-http';
 import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
 import { auditRoutes } from './audit/audit.routes';
 import { getConfig, type Config } from './config';
+import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
@@ -62,6 +63,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/health', healthRoutes());
   api.use('/auth', authRoutes(config));
   api.use('/admin/users', adminUserRoutes());
+  api.use('/calculations', calculationRoutes(config));
   api.use('/fitments', publicFitmentRoutes());
   api.use('/staff/fitments', staffFitmentRoutes(config.csvImportMaxBytes));
   api.use('/staff/audit', auditRoutes());

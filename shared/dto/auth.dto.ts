@@ -1,9 +1,7 @@
 import { IsEmail, IsIn, IsOptional, IsBoolean, IsString, Length, MaxLength, MinLength } from 'class-validator';
 import { roles, type Role } from '../roles';
 
-export const passwordMinLength = 10;
-// bcrypt reads only the first 72 bytes, so a longer password would be silently shortened.
-export const passwordMaxLength = 72;
+import { passwordMaxLength, passwordMinLength } from '../password-rules';
 
 export class LoginDto {
   @IsEmail({}, { message: 'Enter a valid e-mail address.' })

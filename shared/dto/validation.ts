@@ -1,16 +1,30 @@
 import type { ValidationError } from 'class-validator';
 
 /**
- * Maps class-validator's nested errors to dotted field paths with the first message of each.
- * @example flattenValidationErrors(errors) // { 'springs.0.rateNPerMm': 'rate must be positive' }
+ * Maps class-validator errors to dotted field paths and the first message of each, e.g.
+ * `{ "springs.0.rateNPerMm": "Spring rate must be more than 0 N/mm." }`. A field that is not allowed
+ * (refused by `forbidNonWhitelisted`) gets a plain message instead of the library's wording.
+ * @example flattenValidationErrors(await validate(dto, { whitelist: true, forbidNonWhitelisted: true }))
  */
-export function flattenValidationErrors(errors: ValidationError[], prefix = ''): Record<string, string> {
+export function flattenValidationErrors(errors: readonly ValidationError[]): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const e of errors) {
-    const path = prefix ? `${prefix}.${e.property}` : e.property;
-    const first = e.constraints ? Object.values(e.constraints)[0] : undefined;
-    if (first !== undefined) out[path] = first;
-    if (e.children?.length) Object.assign(out, flattenValidationErrors(e.children, path));
-  }
+  const walk = (list: readonly ValidationError[], prefix: string): void => {
+    for (const e of list) {
+      const path = prefix === '' ? e.property : `${prefix}.${e.property}`;
+      const constraints = e.constraints ?? {};
+      const first = Object.entries(constraints)[0];
+      if (first !== undefined && !Object.hasOwn(out, path)) {
+        const [type, message] = first;
+        Object.defineProperty(out, path, {
+          value: type === 'whitelistValidation' ? `“${e.property}” is not a field this request accepts.` : message,
+          enumerable: true,
+          writable: true,
+          configurable: true,
+        });
+      }
+      if (e.children !== undefined && e.children.length > 0) walk(e.children, path);
+    }
+  };
+  walk(errors, '');
   return out;
 }

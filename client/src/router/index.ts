@@ -6,6 +6,9 @@ import { useSessionStore } from '../stores/session';
 
 export const routeNames = [
   'home',
+  'find-springs',
+  'setup-sheet',
+  'sag-check',
   'sign-in',
   'register',
   'forgot-password',
@@ -35,6 +38,9 @@ type NamedRoute = RouteRecordRaw & { name: RouteName };
 
 const children: NamedRoute[] = [
   { path: '', name: 'home', component: HomePage, meta: { title: 'Springs for the way you ride' } },
+  { path: 'find', name: 'find-springs', component: () => import('../pages/shop/FindSpringsPage.vue'), meta: { title: 'Find your springs' } },
+  { path: 'setup-sheet', name: 'setup-sheet', component: () => import('../pages/shop/SetupSheetPage.vue'), meta: { title: 'Setup sheet' } },
+  { path: 'sag-check', name: 'sag-check', component: () => import('../pages/shop/SagCheckPage.vue'), meta: { title: 'Check your sag' } },
   { path: 'sign-in', name: 'sign-in', component: () => import('../pages/account/SignInPage.vue'), meta: { guestOnly: true, title: 'Sign in' } },
   { path: 'register', name: 'register', component: () => import('../pages/account/RegisterPage.vue'), meta: { guestOnly: true, title: 'Create an account' } },
   { path: 'forgot-password', name: 'forgot-password', component: () => import('../pages/account/ForgotPasswordPage.vue'), meta: { title: 'Forgot password' } },

@@ -1,0 +1,191 @@
+import { describe, expect, it } from 'vitest';
+import { testApp } from '../test/factories';
+
+const g = 9.80665;
+
+const rearBody = () => ({
+  wheelbaseMm: 1500,
+  sprungMassKg: 95,
+  loads: [
+    { massKg: 80, positionMm: 900 },
+    { massKg: 12, positionMm: 1750 },
+  ],
+  leverageRatio: 2.1,
+  wheelTravelMm: 200,
+  shockStrokeMm: 95,
+  targets: { staticSagMm: 25, riderSagMm: 66 },
+  preloadRangeMm: { min: 2, max: 20 },
+  adjusterPitchMm: 1.0,
+  springs: [
+    { id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 },
+    { id: 'R-65', rateNPerMm: 65, freeLengthMm: 229, solidLengthMm: 110 },
+    { id: 'R-140', rateNPerMm: 140, freeLengthMm: 229, solidLengthMm: 110 },
+  ],
+});
+
+const forkBody = () => ({
+  wheelbaseMm: 1500,
+  sprungMassKg: 85,
+  loads: [{ massKg: 88, positionMm: 900 }],
+  forkAngleDeg: 26,
+  springCount: 2,
+  forkTravelMm: 150,
+  targets: { staticSagMm: 25, riderSagMm: 40 },
+  preloadRangeMm: { min: 0, max: 20 },
+  adjusterPitchMm: 1,
+  springs: [
+    { id: 'F-7', rateNPerMm: 7, freeLengthMm: 300 },
+    { id: 'F-9', rateNPerMm: 9, freeLengthMm: 300 },
+  ],
+});
+
+describe('POST /api/calculations/rear-spring', () => {
+  it('answers the rear load, the required rate in three units and the candidates, ok ones first', async () => {
+    const res = await testApp().http.post('/api/calculations/rear-spring').send(rearBody());
+    expect(res.status).toBe(200);
+    // Statics by hand: W_r = g·Σ m·x/L = 9.80665 × (80·900 + 12·1750)/1500 N.
+    expect(res.body.rearLoadN).toBeCloseTo((g * (80 * 900 + 12 * 1750)) / 1500, 6);
+    expect(res.body.bikeLoadN).toBeCloseTo(g * 95, 6);
+    // Constant ratio closed form: k = LR²·W_r/(s_r − s_s).
+    expect(res.body.requiredRate.nPerMm).toBeCloseTo((2.1 ** 2 * res.body.rearLoadN) / 41, 6);
+    expect(res.body.requiredRate.kgfPerMm).toBeCloseTo(res.body.requiredRate.nPerMm / g, 6);
+    const ids = res.body.candidates.map((c: { id: string }) => c.id);
+    expect(ids[0]).toBe('R-65');
+    const verdicts = Object.fromEntries(res.body.candidates.map((c: { id: string; verdict: string }) => [c.id, c.verdict]));
+    expect(verdicts).toEqual({ 'R-65': 'ok', 'R-58': 'too-soft', 'R-140': 'too-stiff' });
+    const ok = res.body.candidates[0];
+    expect(ok.riderSagMm).toBeCloseTo(66, 1);
+    expect(ok.installedLengthMm).toBeCloseTo(229 - ok.preloadMm, 9);
+    expect(ok.coilBindMarginMm).toBeCloseTo(229 - 110 - (ok.preloadMm + 95), 9);
+  });
+
+  it('with load cases, answers each case and the springs that cover them all', async () => {
+    const { loads: _solo, ...rest } = rearBody();
+    const res = await testApp().http.post('/api/calculations/rear-spring').send({
+      ...rest,
+      cases: [
+        { name: 'solo commute', loads: [{ massKg: 80, positionMm: 900 }] },
+        { name: 'two-up touring', loads: [{ massKg: 80, positionMm: 900 }, { massKg: 65, positionMm: 1150 }, { massKg: 15, positionMm: 1750 }] },
+      ],
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.cases).toHaveLength(2);
+    expect(Array.isArray(res.body.coversAllCases)).toBe(true);
+    for (const id of res.body.coversAllCases) {
+      for (const c of res.body.cases) expect(c.candidates.find((x: { id: string }) => x.id === id).verdict).toBe('ok');
+    }
+  });
+});
+
+describe('POST /api/calculations/fork-spring', () => {
+  it('answers the front load and the rate per spring along the fork axis', async () => {
+    const res = await testApp().http.post('/api/calculations/fork-spring').send(forkBody());
+    expect(res.status).toBe(200);
+    const frontN = g * 88 * (1 - 900 / 1500);
+    expect(res.body.frontLoadN).toBeCloseTo(frontN, 6);
+    // k = cos θ · W_f / (n · (x_r − x_s)).
+    expect(res.body.requiredRate.nPerMm).toBeCloseTo((Math.cos((26 * Math.PI) / 180) * frontN) / (2 * 15), 6);
+    expect(res.body.candidates).toHaveLength(2);
+  });
+
+  it('takes the default of two springs when the count is left out', async () => {
+    const { springCount: _n, ...body } = forkBody();
+    const a = await testApp().http.post('/api/calculations/fork-spring').send(body);
+    const b = await testApp().http.post('/api/calculations/fork-spring').send(forkBody());
+    expect(a.body.requiredRate.nPerMm).toBeCloseTo(b.body.requiredRate.nPerMm, 9);
+  });
+});
+
+describe('POST /api/calculations/spring-geometry', () => {
+  it('answers the rate and solid length of a helical spring', async () => {
+    // Shigley's Mechanical Engineering Design, 10th ed., Problem 10-3: k ≈ 1.314 N/mm, Ls = 35 mm, Na = 13.
+    const res = await testApp().http.post('/api/calculations/spring-geometry').send({
+      wireDiameterMm: 2.5,
+      outsideDiameterMm: 31,
+      totalCoils: 14,
+      endType: 'plain-ground',
+      material: 'music-wire',
+      freeLengthMm: 80,
+      loadN: 20,
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.activeCoils).toBe(13);
+    expect(res.body.solidLengthMm).toBeCloseTo(35, 6);
+    expect(Math.abs(res.body.rateNPerMm - 1.314) / 1.314).toBeLessThan(0.01);
+    expect(res.body.travelToSolidMm).toBeCloseTo(45, 6);
+  });
+});
+
+describe('POST /api/calculations/sag-check', () => {
+  it('tells the rider how much preload to add when the rider sag is too deep', async () => {
+    const res = await testApp().http.post('/api/calculations/sag-check').send({
+      end: 'rear',
+      extendedMm: 600,
+      staticMm: { down: 572, up: 578 },
+      riderMm: 524,
+      targets: { staticSagMm: 25, riderSagMm: 66 },
+      leverageRatio: 2.0,
+      adjusterPitchMm: 1,
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.staticSagMm).toBeCloseTo(25, 9);
+    expect(res.body.riderSagMm).toBeCloseTo(76, 9);
+    // Δp = (rider sag − target)/LR = (76 − 66)/2 = 5 mm of preload to add.
+    expect(res.body.preloadChangeMm).toBeCloseTo(5, 9);
+    expect(res.body.adjusterTurns).toBeCloseTo(5, 9);
+    expect(typeof res.body.advice).toBe('string');
+  });
+});
+
+describe('bad input to the calculations gets 400 with a message per field, never a 500', () => {
+  const big = <T>(n: number, f: (i: number) => T) => Array.from({ length: n }, (_, i) => f(i));
+  const cases: [string, string, Record<string, unknown>, string][] = [
+    ['a missing field', '/rear-spring', { ...rearBody(), wheelbaseMm: undefined }, 'wheelbaseMm'],
+    ['a string for a number', '/rear-spring', { ...rearBody(), sprungMassKg: '95' }, 'sprungMassKg'],
+    ['a negative mass', '/rear-spring', { ...rearBody(), loads: [{ massKg: -5, positionMm: 900 }] }, 'loads.0.massKg'],
+    ['a zero length', '/rear-spring', { ...rearBody(), wheelTravelMm: 0 }, 'wheelTravelMm'],
+    ['a static-sag target not below the rider-sag target', '/rear-spring', { ...rearBody(), targets: { staticSagMm: 66, riderSagMm: 66 } }, 'targets.riderSagMm'],
+    ['a leverage curve with no point', '/rear-spring', { ...rearBody(), leverageRatio: [] }, 'leverageRatio'],
+    ['an unsorted leverage curve', '/rear-spring', { ...rearBody(), leverageRatio: [{ wheelTravelMm: 100, ratio: 2 }, { wheelTravelMm: 50, ratio: 2.2 }] }, 'leverageRatio'],
+    ['a leverage curve with a duplicate point', '/rear-spring', { ...rearBody(), leverageRatio: [{ wheelTravelMm: 0, ratio: 2 }, { wheelTravelMm: 0, ratio: 2.2 }] }, 'leverageRatio'],
+    ['more than 50 springs', '/rear-spring', { ...rearBody(), springs: big(51, (i) => ({ id: `S${i}`, rateNPerMm: 50 + i, freeLengthMm: 229 })) }, 'springs'],
+    ['more than 20 loads', '/rear-spring', { ...rearBody(), loads: big(21, () => ({ massKg: 1, positionMm: 900 })) }, 'loads'],
+    ['an unknown field', '/rear-spring', { ...rearBody(), colour: 'red' }, 'colour'],
+    ['an unknown fork field', '/fork-spring', { ...forkBody(), leverageRatio: 2 }, 'leverageRatio'],
+    ['a fork angle out of range', '/fork-spring', { ...forkBody(), forkAngleDeg: 95 }, 'forkAngleDeg'],
+    ['a geometry with no material', '/spring-geometry', { wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground' }, 'material'],
+    ['a geometry with a wire wider than the spring', '/spring-geometry', { wireDiameterMm: 20, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain', material: 'music-wire' }, 'outsideDiameterMm'],
+    ['a sag check of an unknown end', '/sag-check', { end: 'middle', extendedMm: 600, staticMm: 575, riderMm: 534, targets: { staticSagMm: 25, riderSagMm: 66 }, adjusterPitchMm: 1 }, 'end'],
+  ];
+  it.each(cases)('%s', async (_name, path, body, field) => {
+    const res = await testApp().http.post(`/api/calculations${path}`).send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('validation');
+    expect(typeof res.body.fields[field], JSON.stringify(res.body.fields)).toBe('string');
+  });
+
+  it('NaN and Infinity, which JSON cannot carry, arrive as a broken body and are refused plainly', async () => {
+    const res = await testApp()
+      .http.post('/api/calculations/rear-spring')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify(rearBody()).replace('"wheelbaseMm":1500', '"wheelbaseMm":NaN'));
+    expect(res.status).toBe(400);
+    const inf = await testApp()
+      .http.post('/api/calculations/rear-spring')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify(rearBody()).replace('"wheelbaseMm":1500', '"wheelbaseMm":1e999'));
+    expect(inf.status).toBe(400);
+    expect(inf.body.fields.wheelbaseMm).toBeDefined();
+  });
+});
+
+describe('rate limit', () => {
+  it('refuses an address that sends more than the configured number of calculations a minute', async () => {
+    const { http } = testApp({ calcRateLimitPerMinute: 2 });
+    await http.post('/api/calculations/rear-spring').send(rearBody()).expect(200);
+    await http.post('/api/calculations/rear-spring').send(rearBody()).expect(200);
+    const third = await http.post('/api/calculations/rear-spring').send(rearBody());
+    expect(third.status).toBe(429);
+    expect(third.body.code).toBe('rate-limited');
+  });
+});

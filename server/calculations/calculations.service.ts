@@ -1,0 +1,18 @@
+import type { ForkSpringRequestDto, RearSpringRequestDto, SagCheckRequestDto, SpringGeometryRequestDto } from '../../shared/dto/calculations.dto';
+import { checkSag, computeForkSpring, computeRearSpring, computeSpringGeometry } from '../../shared/engine';
+import { AppError } from '../errors';
+
+// The DTOs have already been validated; an engine RangeError means inputs that pass field checks but not physics.
+function guarded<T>(compute: () => T): T {
+  try {
+    return compute();
+  } catch (e) {
+    if (e instanceof RangeError) throw AppError.validation(e.message, { body: e.message });
+    throw e;
+  }
+}
+
+export const rearSpring = (dto: RearSpringRequestDto) => guarded(() => computeRearSpring(dto));
+export const forkSpring = (dto: ForkSpringRequestDto) => guarded(() => computeForkSpring(dto));
+export const springGeometry = (dto: SpringGeometryRequestDto) => guarded(() => computeSpringGeometry(dto));
+export const sagCheck = (dto: SagCheckRequestDto) => guarded(() => checkSag(dto));

@@ -1,0 +1,100 @@
+import { g, rateInUnits } from '../units';
+import { buildCandidate, rankCandidates, runCases } from './candidates';
+import { loadSplit } from './statics';
+import type {
+  ForkSpringCasesResult,
+  ForkSpringInput,
+  ForkSpringResult,
+  Load,
+  PreloadRange,
+  SagTargets,
+  SpringCandidateInput,
+  SpringCandidateResult,
+} from './types';
+
+/** Everything about one fork and one load that does not depend on the spring. */
+export interface ForkModel {
+  /** cos θ of the fork axis from vertical. */
+  cosAngle: number;
+  springCount: number;
+  bikeLoadN: number;
+  totalLoadN: number;
+  targets: SagTargets;
+  preloadRangeMm: PreloadRange;
+  adjusterPitchMm?: number;
+  forkTravelMm: number;
+}
+
+/**
+ * Axial spring deflection along the tubes for a vertical wheel load: cos θ·F / (n·k), mm.
+ * @example forkSpringDeflection(0, 2, 10, 1000) // 50
+ */
+export function forkSpringDeflection(forkAngleDeg: number, springCount: number, rateNPerMm: number, wheelForceN: number): number {
+  return (Math.cos((forkAngleDeg * Math.PI) / 180) * wheelForceN) / (springCount * rateNPerMm);
+}
+
+/**
+ * Fork sag with preload p: cos θ·F/(n·k) − p, kept between 0 (topped out) and full travel, mm.
+ * @example forkSag(model, 10, 1000, 5) // 45 for a vertical twin-spring fork
+ */
+export function forkSag(model: ForkModel, rateNPerMm: number, wheelForceN: number, preloadMm: number): number {
+  const x = (model.cosAngle * wheelForceN) / (model.springCount * rateNPerMm) - preloadMm;
+  return Math.min(model.forkTravelMm, Math.max(0, x));
+}
+
+/**
+ * Required rate of each fork spring: cos θ·W_f / (n·(x_r − x_s)), N/mm.
+ * @example forkRequiredRate(1, 2, 400, { staticSagMm: 30, riderSagMm: 40 }) // 20
+ */
+export function forkRequiredRate(cosAngle: number, springCount: number, frontLoadN: number, targets: SagTargets): number {
+  return (cosAngle * frontLoadN) / (springCount * (targets.riderSagMm - targets.staticSagMm));
+}
+
+/**
+ * Evaluates one candidate fork spring on a prepared model.
+ * @example evaluateForkSpring(model, { id: 'F-9', rateNPerMm: 9, freeLengthMm: 300 })
+ */
+export function evaluateForkSpring(model: ForkModel, spring: SpringCandidateInput): SpringCandidateResult {
+  const k = spring.rateNPerMm;
+  const preloadNeededMm = (model.cosAngle * model.totalLoadN) / (model.springCount * k) - model.targets.riderSagMm;
+  const ctx = { preloadRangeMm: model.preloadRangeMm, adjusterPitchMm: model.adjusterPitchMm, strokeMm: model.forkTravelMm };
+  return buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => [
+    forkSag(model, k, model.bikeLoadN, preloadMm),
+    forkSag(model, k, model.totalLoadN, preloadMm),
+  ]);
+}
+
+function forkForLoads(input: ForkSpringInput, loads: readonly Load[]): ForkSpringResult {
+  const bikeLoadN = g * input.sprungMassKg;
+  const frontLoadN = loadSplit(input.wheelbaseMm, loads).frontN;
+  const model: ForkModel = {
+    cosAngle: Math.cos((input.forkAngleDeg * Math.PI) / 180),
+    springCount: input.springCount ?? 2,
+    bikeLoadN,
+    totalLoadN: bikeLoadN + frontLoadN,
+    targets: input.targets,
+    preloadRangeMm: input.preloadRangeMm,
+    adjusterPitchMm: input.adjusterPitchMm,
+    forkTravelMm: input.forkTravelMm,
+  };
+  const required = forkRequiredRate(model.cosAngle, model.springCount, frontLoadN, input.targets);
+  const candidates = (input.springs ?? []).map((s) => evaluateForkSpring(model, s));
+  return { frontLoadN, bikeLoadN, requiredRate: rateInUnits(required), candidates: rankCandidates(candidates, required) };
+}
+
+/**
+ * Fork spring selection, per spring of `springCount` (default 2) working in parallel; sag is along the tubes.
+ * Same output shape as `computeRearSpring` with `frontLoadN`; with `cases` it returns the same
+ * `{ cases, coversAllCases, uncoveredBy }` shape. `adjusterTurns` is omitted when there is no adjuster pitch.
+ * @example
+ * computeForkSpring({ wheelbaseMm: 1500, sprungMassKg: 110, loads: [{ massKg: 80, positionMm: 900 }],
+ *   forkAngleDeg: 25, forkTravelMm: 120, targets: { staticSagMm: 25, riderSagMm: 35 },
+ *   preloadRangeMm: { min: 0, max: 15 }, springs: [{ id: 'F-9', rateNPerMm: 9, freeLengthMm: 300 }] })
+ */
+export function computeForkSpring(input: ForkSpringInput & { loads: Load[]; cases?: undefined }): ForkSpringResult;
+export function computeForkSpring(input: ForkSpringInput): ForkSpringResult | ForkSpringCasesResult;
+export function computeForkSpring(input: ForkSpringInput): ForkSpringResult | ForkSpringCasesResult {
+  if (input.cases !== undefined) return runCases(input.cases, input.springs ?? [], (loads) => forkForLoads(input, loads));
+  if (input.loads === undefined) throw new RangeError('Give either loads or cases');
+  return forkForLoads(input, input.loads);
+}

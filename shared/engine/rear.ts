@@ -1,0 +1,104 @@
+import { g, rateInUnits } from '../units';
+import { buildCandidate, rankCandidates, runCases } from './candidates';
+import { createLeverageCurve, leverageRatioAt, shockTravelAt, solveShockEquilibrium, type LeverageCurve } from './leverage';
+import { loadSplit } from './statics';
+import type {
+  Load,
+  PreloadRange,
+  RearSpringCasesResult,
+  RearSpringInput,
+  RearSpringResult,
+  SagTargets,
+  SpringCandidateInput,
+  SpringCandidateResult,
+} from './types';
+
+/** Everything about one rear end and one load that does not depend on the spring. */
+export interface RearModel {
+  curve: LeverageCurve;
+  /** F_b, the bike's own sprung weight on the rear wheel, N. */
+  bikeLoadN: number;
+  /** F_t = F_b + W_r, N. */
+  totalLoadN: number;
+  targets: SagTargets;
+  preloadRangeMm: PreloadRange;
+  adjusterPitchMm?: number;
+  wheelTravelMm: number;
+  shockStrokeMm: number;
+}
+
+/**
+ * Rate that gives both sag targets: k = (LR(s_r)·F_t − LR(s_s)·F_b) / (y(s_r) − y(s_s)), N/mm.
+ * With a constant ratio this is LR²·W_r / (s_r − s_s).
+ * @example rearRequiredRate(createLeverageCurve(2), 1000, 1500, { staticSagMm: 25, riderSagMm: 65 }) // 50
+ */
+export function rearRequiredRate(curve: LeverageCurve, bikeLoadN: number, totalLoadN: number, targets: SagTargets): number {
+  const { staticSagMm: ss, riderSagMm: sr } = targets;
+  const num = leverageRatioAt(curve, sr) * totalLoadN - leverageRatioAt(curve, ss) * bikeLoadN;
+  return num / (shockTravelAt(curve, sr) - shockTravelAt(curve, ss));
+}
+
+/**
+ * Preload that puts the rider sag exactly on target with a spring of rate k: LR(s_r)·F_t / k − y(s_r), mm.
+ * @example rearPreloadNeeded(createLeverageCurve(2), 50, 1500, 65) // 27.5
+ */
+export function rearPreloadNeeded(curve: LeverageCurve, rateNPerMm: number, totalLoadN: number, riderSagMm: number): number {
+  return (leverageRatioAt(curve, riderSagMm) * totalLoadN) / rateNPerMm - shockTravelAt(curve, riderSagMm);
+}
+
+/**
+ * Evaluates one candidate spring on a prepared rear model.
+ * @example evaluateRearSpring(model, { id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 })
+ */
+export function evaluateRearSpring(model: RearModel, spring: SpringCandidateInput): SpringCandidateResult {
+  const k = spring.rateNPerMm;
+  const preloadNeededMm = rearPreloadNeeded(model.curve, k, model.totalLoadN, model.targets.riderSagMm);
+  const ctx = { preloadRangeMm: model.preloadRangeMm, adjusterPitchMm: model.adjusterPitchMm, strokeMm: model.shockStrokeMm };
+  return buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => {
+    const solve = (wheelForceN: number): number =>
+      solveShockEquilibrium(model.curve, { rateNPerMm: k, preloadMm, wheelForceN, wheelTravelMm: model.wheelTravelMm });
+    return [solve(model.bikeLoadN), solve(model.totalLoadN)];
+  });
+}
+
+function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: readonly Load[]): RearSpringResult {
+  const bikeLoadN = g * input.sprungMassKg;
+  const rearLoadN = loadSplit(input.wheelbaseMm, loads).rearN;
+  const model: RearModel = {
+    curve,
+    bikeLoadN,
+    totalLoadN: bikeLoadN + rearLoadN,
+    targets: input.targets,
+    preloadRangeMm: input.preloadRangeMm,
+    adjusterPitchMm: input.adjusterPitchMm,
+    wheelTravelMm: input.wheelTravelMm,
+    shockStrokeMm: input.shockStrokeMm,
+  };
+  const required = rearRequiredRate(curve, bikeLoadN, model.totalLoadN, input.targets);
+  const candidates = (input.springs ?? []).map((s) => evaluateRearSpring(model, s));
+  return { rearLoadN, bikeLoadN, requiredRate: rateInUnits(required), candidates: rankCandidates(candidates, required) };
+}
+
+/**
+ * Rear spring selection: required rate for the sag targets and, per candidate spring, preload, adjuster
+ * turns, installed length, predicted sags, coil-bind margin and a verdict, best candidate first.
+ *
+ * With `loads` it returns one `RearSpringResult`. With `cases` instead it returns
+ * `{ cases: [{ name, ...RearSpringResult }], coversAllCases, uncoveredBy }` where `coversAllCases` lists the
+ * spring ids that are `ok` in every case (closest to the required rates first) and `uncoveredBy` maps each
+ * other spring id to the name of the first case that breaks it (empty when every spring covers every case).
+ * Throws RangeError when neither `loads` nor `cases` is given.
+ * @example
+ * computeRearSpring({ wheelbaseMm: 1500, sprungMassKg: 95, loads: [{ massKg: 80, positionMm: 900 }],
+ *   leverageRatio: 2.1, wheelTravelMm: 200, shockStrokeMm: 95, targets: { staticSagMm: 25, riderSagMm: 66 },
+ *   preloadRangeMm: { min: 2, max: 20 }, adjusterPitchMm: 1,
+ *   springs: [{ id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 }] }).candidates[0].verdict
+ */
+export function computeRearSpring(input: RearSpringInput & { loads: Load[]; cases?: undefined }): RearSpringResult;
+export function computeRearSpring(input: RearSpringInput): RearSpringResult | RearSpringCasesResult;
+export function computeRearSpring(input: RearSpringInput): RearSpringResult | RearSpringCasesResult {
+  const curve = createLeverageCurve(input.leverageRatio);
+  if (input.cases !== undefined) return runCases(input.cases, input.springs ?? [], (loads) => rearForLoads(input, curve, loads));
+  if (input.loads === undefined) throw new RangeError('Give either loads or cases');
+  return rearForLoads(input, curve, input.loads);
+}

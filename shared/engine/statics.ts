@@ -1,0 +1,37 @@
+import { g } from '../units';
+import type { Load } from './types';
+
+/** Added axle loads from a set of masses, N. */
+export interface LoadSplit {
+  /** W_r = g·Σ m·x / L; more than the total weight when a load sits behind the rear axle. */
+  rearN: number;
+  /** W_f = g·Σ m − W_r; negative when a load behind the rear axle lifts the front. */
+  frontN: number;
+  totalN: number;
+}
+
+/**
+ * Splits added masses between the axles by moments about the front axle (rigid beam on two supports).
+ * Positions are measured rearward from the front axle; beyond the wheelbase is behind the rear axle.
+ * @example loadSplit(1500, [{ massKg: 80, positionMm: 900 }]) // { rearN: 470.7..., frontN: 313.8..., totalN: 784.5... }
+ */
+export function loadSplit(wheelbaseMm: number, loads: readonly Load[]): LoadSplit {
+  if (!(wheelbaseMm > 0)) throw new RangeError('Wheelbase must be positive');
+  let mass = 0;
+  let moment = 0;
+  for (const l of loads) {
+    mass += l.massKg;
+    moment += l.massKg * l.positionMm;
+  }
+  const totalN = g * mass;
+  const rearN = (g * moment) / wheelbaseMm;
+  return { rearN, frontN: totalN - rearN, totalN };
+}
+
+/**
+ * Share of one load carried by the rear axle: position / wheelbase (above 1 behind the rear axle).
+ * @example rearShare(1500, 1750) // 1.1666...
+ */
+export function rearShare(wheelbaseMm: number, positionMm: number): number {
+  return positionMm / wheelbaseMm;
+}
