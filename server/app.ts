@@ -6,10 +6,12 @@ import { extname, join } from 'node:path';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
+import { auditRoutes } from './audit/audit.routes';
 import { getConfig, type Config } from './config';
 import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
 import { authenticate } from './http/auth';
+import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
 import { originCheck } from './http/origin-check';
 
@@ -62,6 +64,9 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/auth', authRoutes(config));
   api.use('/admin/users', adminUserRoutes());
   api.use('/calculations', calculationRoutes(config));
+  api.use('/fitments', publicFitmentRoutes());
+  api.use('/staff/fitments', staffFitmentRoutes(config.csvImportMaxBytes));
+  api.use('/staff/audit', auditRoutes());
   api.use(notFoundApi);
   app.use('/api', api);
 
