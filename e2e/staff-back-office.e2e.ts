@@ -12,7 +12,7 @@ test.describe('staff keep the fitment table', () => {
     const list = new StaffFitmentsPage(page);
     await list.open();
     await list.search(fitment.model);
-    await expect(list.table().getByRole('cell', { name: fitment.model })).toBeVisible();
+    await expect(list.table().getByRole('cell', { name: fitment.model, exact: true })).toBeVisible();
     await list.edit(fitment.model);
 
     const form = new StaffFitmentEditPage(page);
@@ -84,7 +84,7 @@ test.describe('staff keep the fitment table', () => {
     await expect(page.getByRole('heading', { name: 'Ready to import' })).toBeVisible();
     await expect(page.getByTestId('import-summary')).toContainText('1 new');
     await importer.commit();
-    await expect(page.getByText(/Imported 1 rows: 1 new/)).toBeVisible();
+    await expect(page.getByText(/Imported 1 row: 1 new/)).toBeVisible();
 
     const imported = await findImported();
     expect(imported.total).toBe(1);
