@@ -14,6 +14,8 @@ export interface QuantitySpec {
   integer?: boolean;
   optional?: boolean;
   hint?: string;
+  /** 'named' words a range message as the server does for springs: "Wire diameter is at most 25 mm." */
+  phrasing?: 'must' | 'named';
 }
 
 // Ranges mirror FitmentInputDto so staff see the server's rule before they press save.
@@ -201,8 +203,9 @@ export function checkQuantity(value: N, spec: QuantitySpec): string {
   if (value === null) return spec.optional ? '' : `Enter the ${spec.label.toLowerCase()}.`;
   if (!Number.isFinite(value)) return `${spec.label} is a number.`;
   if (spec.integer && !Number.isInteger(value)) return `${spec.label} is a whole number.`;
-  if (value < spec.min) return `Must be at least ${spec.min} ${spec.unit}.`;
-  if (value > spec.max) return `Must be at most ${spec.max} ${spec.unit}.`;
+  const lead = spec.phrasing === 'named' ? `${spec.label} is` : 'Must be';
+  if (value < spec.min) return `${lead} at least ${spec.min} ${spec.unit}.`;
+  if (value > spec.max) return `${lead} at most ${spec.max} ${spec.unit}.`;
   return '';
 }
 

@@ -142,7 +142,7 @@ export function checkProductDraft(d: ProductDraft): Record<string, string> {
     if (!s.end) put('spring.end', 'Choose fork or shock.');
     if (!s.endType) put('spring.endType', 'Choose the end type.');
     if (!s.material) put('spring.material', 'Choose a material.');
-    for (const [k, spec] of Object.entries(springSpecs)) put(`spring.${k}`, checkQuantity(s[k as keyof typeof springSpecs], spec));
+    for (const [k, spec] of Object.entries(springSpecs)) put(`spring.${k}`, checkQuantity(s[k as keyof typeof springSpecs], { ...spec, phrasing: 'named' }));
   }
   return p;
 }
