@@ -32,7 +32,8 @@ export function publicProductRoutes(): Router {
 
 /** One image per request, in field "image", no larger than the configured limit. */
 function imageUpload(config: Config): RequestHandler {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: config.uploadMaxBytes, files: 1, fields: 5, parts: 6 } }).single('image');
+  // preservePath keeps what the client sent, so a name with a path is refused rather than quietly cut.
+  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: config.uploadMaxBytes, files: 1, fields: 5, parts: 6 } }).single('image');
   return (req, res, next) => {
     upload(req, res, (err: unknown) => {
       if (!err) return next();

@@ -165,6 +165,7 @@ export function applyProductInput(p: Product, dto: ProductInputDto): void {
     active: dto.active,
   });
   const s = dto.spring;
+  if (dto.kind === 'spring' && !s) throw AppError.validation('Give the spring details.', { spring: 'Give the spring details.' });
   if (dto.kind !== 'spring' || !s) {
     Object.assign(p, {
       springEnd: null, rateNPerMm: null, freeLengthMm: null, innerDiameterMm: null, outerDiameterMm: null, wireDiameterMm: null,
