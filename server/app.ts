@@ -6,10 +6,14 @@ import { extname, join } from 'node:path';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
+import { auditRoutes } from './audit/audit.routes';
+import { productImageFiles, publicProductRoutes, staffCatalogueRoutes, staffProductRoutes } from './catalogue/catalogue.routes';
 import { getConfig, type Config } from './config';
 import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
+import { recommendationRoutes } from './recommendations/recommendations.routes';
 import { authenticate } from './http/auth';
+import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
 import { originCheck } from './http/origin-check';
 
@@ -62,8 +66,17 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/auth', authRoutes(config));
   api.use('/admin/users', adminUserRoutes());
   api.use('/calculations', calculationRoutes(config));
+  api.use('/fitments', publicFitmentRoutes());
+  api.use('/staff/fitments', staffFitmentRoutes(config.csvImportMaxBytes));
+  api.use('/staff/audit', auditRoutes());
+  api.use('/products', publicProductRoutes());
+  api.use('/staff/products', staffProductRoutes(config));
+  api.use('/staff', staffCatalogueRoutes());
+  api.use('/recommendations', recommendationRoutes(config));
   api.use(notFoundApi);
   app.use('/api', api);
+  // Before the SPA fallback, so a missing image is a 404 and not the app's index page.
+  app.use('/files/product-images', productImageFiles(config));
 
   serveClient(app, config);
   app.use(errorMiddleware);

@@ -21,6 +21,8 @@ export interface Config {
   calcRateLimitPerMinute: number;
   uploadDir: string;
   uploadMaxBytes: number;
+  csvImportMaxBytes: number;
+  catalogueCacheTtlMs: number;
   clientDist: string;
 }
 
@@ -100,6 +102,8 @@ export function parseConfig(env: Env = process.env): Config {
     calcRateLimitPerMinute: int('CALC_RATE_LIMIT_PER_MINUTE', 600, 1, 100_000_000),
     uploadDir: resolve(projectRoot, env.UPLOAD_DIR || '.data/uploads'),
     uploadMaxBytes: int('UPLOAD_MAX_BYTES', 5 * 1024 * 1024, 1024, 100 * 1024 * 1024),
+    csvImportMaxBytes: int('CSV_IMPORT_MAX_BYTES', 20 * 1024 * 1024, 1024, 200 * 1024 * 1024),
+    catalogueCacheTtlMs: int('CATALOGUE_CACHE_TTL_MS', 5000, 0, 3_600_000),
     clientDist: resolve(projectRoot, env.CLIENT_DIST || 'dist/client'),
   };
   if (problems.length) throw new ConfigError(problems);

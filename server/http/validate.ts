@@ -23,3 +23,24 @@ export function body<T extends object>(cls: ClassConstructor<T>): RequestHandler
     next();
   };
 }
+
+/** Parses a query string into the DTO class; repeated or unknown parameters are refused per field. */
+export async function parseQuery<T extends object>(cls: ClassConstructor<T>, query: unknown): Promise<T> {
+  const q = (query ?? {}) as Record<string, unknown>;
+  const repeated = Object.entries(q).filter(([, v]) => typeof v !== 'string');
+  if (repeated.length) {
+    throw AppError.validation('Some query parameters need attention.', Object.fromEntries(repeated.map(([k]) => [k, 'give this parameter once, as plain text'])));
+  }
+  const dto = plainToInstance(cls, q);
+  const errors = await validate(dto, { whitelist: true, forbidNonWhitelisted: true, forbidUnknownValues: true });
+  if (errors.length) throw AppError.validation('Some query parameters need attention.', flattenValidationErrors(errors));
+  return dto;
+}
+
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** A route's id parameter; anything that is not a UUID cannot name a record, so it is a 404, not a database error. */
+export function uuidParam(value: unknown, what: string): string {
+  if (typeof value !== 'string' || !uuidPattern.test(value)) throw AppError.notFound(what);
+  return value.toLowerCase();
+}

@@ -68,3 +68,6 @@ export class AdapterNeedsDto {
   @Type(() => AdapterNeedInputDto)
   adapters!: AdapterNeedInputDto[];
 }
+
+/** A spring fits a fitment's window when its inner diameter is within this of the fitment's, mm. */
+export const springFitToleranceMm = 0.5;

@@ -4,6 +4,7 @@ import {
   IsBoolean,
   IsIn,
   IsInt,
+  IsObject,
   IsNumber,
   IsOptional,
   IsString,
@@ -270,6 +271,7 @@ export class ProductInputDto {
 
   /** Required for kind 'spring', refused for the others. */
   @ValidateIf((o: ProductInputDto) => o.kind === 'spring' || o.spring != null)
+  @IsObject({ message: 'Give the spring details.' })
   @ValidateNested()
   @Type(() => SpringDetailsInputDto)
   spring?: SpringDetailsInputDto | null;

@@ -1,0 +1,124 @@
+import { parse } from 'csv-parse/sync';
+import { stringify } from 'csv-stringify/sync';
+import { describe, expect, it } from 'vitest';
+import type { CsvImportReportDto } from '../../shared/catalogue';
+import { seedDemo } from '../../seeds/demo';
+import { AppDataSource } from '../db/data-source';
+import { fitmentInput } from '../test/catalogue-factories';
+import { testApp, userWithToken } from '../test/factories';
+
+async function staffApp() {
+  const t = testApp();
+  const staff = await userWithToken(t.config, 'staff');
+  const exportCsv = async () => (await t.http.get('/api/staff/fitments/export.csv').set(staff.auth).expect(200)).text;
+  const send = (path: string, csv: string) => t.http.post(`/api/staff/fitments/${path}`).set(staff.auth).set('Content-Type', 'text/csv').send(csv);
+  return { ...t, staff, exportCsv, send };
+}
+
+const rowsOf = (csv: string) => parse(csv, { columns: true }) as Record<string, string>[];
+const csvOf = (rows: Record<string, string>[]) => stringify(rows, { header: true, columns: Object.keys(rows[0]!) });
+
+describe('the fitment table as CSV', () => {
+  it('an exported file re-imports unchanged, and exports again byte for byte', async () => {
+    await AppDataSource.transaction((em) => seedDemo(em));
+    const { exportCsv, send } = await staffApp();
+    const first = await exportCsv();
+    expect(rowsOf(first)).toHaveLength(20);
+    const preview = await send('import/preview', first);
+    expect(preview.status).toBe(200);
+    expect(preview.body).toEqual({ dryRun: true, rows: 20, created: 0, updated: 0, unchanged: 20, problems: [] } satisfies CsvImportReportDto);
+    const imported = await send('import', first);
+    expect(imported.body).toMatchObject({ dryRun: false, unchanged: 20, created: 0, updated: 0 });
+    expect(await exportCsv()).toBe(first);
+  });
+
+  it('rows without an id are created, a changed row is updated, and both are audited as imports', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const rows = rowsOf(await exportCsv());
+    const changed = { ...rows[0]!, rearLeverage: '0:2.8; 100:2.6; 200:2.4', notes: 'curve, "quoted", with, commas\nand a new line' };
+    const added = { ...rows[0]!, id: '', model: 'Ridgeline 900', massInput: 'wet', frontSprungMassKg: '', rearSprungMassKg: '', wetMassKg: '230', frontStaticSharePct: '49', frontUnsprungMassKg: '19', rearUnsprungMassKg: '25' };
+    const res = await send('import', csvOf([changed, added]));
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ rows: 2, created: 1, updated: 1, unchanged: 0, problems: [] });
+    const list = (await http.get('/api/fitments').query({ sort: 'model' })).body.items;
+    expect(list.map((f: { model: string }) => f.model)).toEqual(['Ridgeline 800', 'Ridgeline 900']);
+    const updated = (await http.get(`/api/fitments/${rows[0]!.id}`)).body;
+    expect(updated.rearLeverageCurve).toEqual([{ wheelTravelMm: 0, ratio: 2.8 }, { wheelTravelMm: 100, ratio: 2.6 }, { wheelTravelMm: 200, ratio: 2.4 }]);
+    expect(updated.notes).toBe('curve, "quoted", with, commas\nand a new line');
+    const created = (await http.get(`/api/fitments/${list[1].id}`)).body;
+    expect(created.frontSprungMassKg).toBeCloseTo(230 * 0.49 - 19, 9);
+    const [{ n }] = await AppDataSource.query(`SELECT count(*)::int AS n FROM audit_log WHERE action = 'import'`);
+    expect(n).toBe(2);
+  });
+
+  it('a CSV with bad rows is refused whole, with every problem listed by line and column', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const [good] = rowsOf(await exportCsv());
+    const fresh = { ...good!, id: '' };
+    const rows = [
+      { ...fresh, model: 'Good new one' },
+      { ...fresh, model: 'Bad wheelbase', wheelbaseMm: 'long' },
+      { ...fresh, model: 'Bad years', yearFrom: '2024', yearTo: '2020' },
+      { ...fresh, model: 'Bad sag', rearSagRoadStatic: '90' },
+      { ...fresh, model: 'Bad station', tankBagMaxKg: '900' },
+      { ...fresh, model: 'Bad leverage', rearLeverage: '0:2.8; 100:x' },
+      { ...fresh, model: 'Bad id', id: 'row-7' },
+      { ...fresh, model: 'Bad torque', torques: 'Fork cap' },
+    ];
+    const csv = csvOf(rows);
+    const preview = await send('import/preview', csv);
+    expect(preview.status).toBe(200);
+    const problems = (preview.body as CsvImportReportDto).problems.map((p) => [p.line, p.column]);
+    expect(problems).toEqual([
+      [3, 'wheelbaseMm'],
+      [4, 'yearTo'],
+      [5, 'rearSagRoadStatic'],
+      [6, 'tankBagMaxKg'],
+      [7, 'rearLeverage'],
+      [8, 'id'],
+      [9, 'torques'],
+    ]);
+    const res = await send('import', csv);
+    expect(res.status).toBe(400);
+    expect(res.body.details.problems).toHaveLength(7);
+    expect(res.body.message).toMatch(/7 problem/);
+    expect((await http.get('/api/fitments')).body.total).toBe(1);
+  });
+
+  it('a dry run writes nothing', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const [row] = rowsOf(await exportCsv());
+    const res = await send('import/preview', csvOf([{ ...row!, id: '', model: 'Preview only' }]));
+    expect(res.body).toMatchObject({ dryRun: true, created: 1 });
+    expect((await http.get('/api/fitments')).body.total).toBe(1);
+  });
+
+  it('duplicates within the file and against the table are problems', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const [row] = rowsOf(await exportCsv());
+    const res = await send('import/preview', csvOf([row!, { ...row! }, { ...row!, id: '' }]));
+    expect(res.body.problems.map((p: { line: number; column: string }) => [p.line, p.column])).toEqual([
+      [3, 'id'],
+      [3, 'yearFrom'],
+      [4, 'yearFrom'],
+    ]);
+  });
+
+  it('a header with an unknown or a missing column, broken quoting, or no CSV at all is refused', async () => {
+    const { exportCsv, send } = await staffApp();
+    const header = (await exportCsv()).trim();
+    const unknown = await send('import', `${header},colour\n`);
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.details.problems).toEqual([{ line: 1, column: 'colour', message: 'Unknown column.' }]);
+    const missing = await send('import', header.replace(',notes', '') + '\n');
+    expect(missing.body.details.problems).toEqual([{ line: 1, column: 'notes', message: 'This column is missing.' }]);
+    const broken = await send('import', `${header}\n"unterminated,`);
+    expect(broken.status).toBe(400);
+    expect(broken.body.details.problems[0].message).toMatch(/not valid CSV/);
+    expect((await send('import', '')).status).toBe(400);
+  });
+});

@@ -1,0 +1,17 @@
+import { Router } from 'express';
+import { RecommendationRequestDto } from '../../shared/catalogue';
+import type { Config } from '../config';
+import { limiter } from '../http/rate-limit';
+import { parseBody } from '../http/validate';
+import { createBikeCache, recommend } from './recommendations.service';
+
+/** Spring recommendations for a rider's bike and load: no sign-in, limited per address like the calculations. */
+export function recommendationRoutes(config: Config): Router {
+  const r = Router();
+  const cache = createBikeCache(config.catalogueCacheTtlMs);
+  r.use(limiter({ windowMs: 60_000, limit: config.calcRateLimitPerMinute }));
+  r.post('/', async (req, res) => {
+    res.json(await recommend(await parseBody(RecommendationRequestDto, req.body), cache));
+  });
+  return r;
+}
