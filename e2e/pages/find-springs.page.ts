@@ -1,0 +1,35 @@
+import type { Page } from '@playwright/test';
+
+export class FindSpringsPage {
+  constructor(private readonly page: Page) {}
+
+  async open() {
+    await this.page.goto('/find');
+  }
+
+  private async choose(label: string, option: string | RegExp) {
+    await this.page.getByLabel(label, { exact: true }).click();
+    await this.page.getByRole('option', { name: option }).first().click();
+  }
+
+  async chooseBike(make: string, model: string, years: string | RegExp) {
+    await this.choose('Make', make);
+    await this.choose('Model', model);
+    await this.choose('Years and version', years);
+  }
+
+  async enterLoad(load: { riderKg: number; gearKg?: number; passengerKg?: number; topCaseKg?: number }) {
+    await this.page.getByLabel('Rider', { exact: true }).fill(String(load.riderKg));
+    if (load.gearKg !== undefined) await this.page.getByLabel('Riding gear').fill(String(load.gearKg));
+    if (load.passengerKg !== undefined) await this.page.getByLabel('Passenger, in gear').fill(String(load.passengerKg));
+    if (load.topCaseKg !== undefined) await this.page.getByLabel('Top case').fill(String(load.topCaseKg));
+  }
+
+  async workOut() {
+    await this.page.getByRole('button', { name: 'Work out my springs' }).click();
+  }
+
+  candidates(end: 'Fork springs' | 'Shock spring') {
+    return this.page.getByRole('table', { name: `${end}: candidates` });
+  }
+}
