@@ -1,21 +1,30 @@
 /**
- * npm run bench [-- name...]: runs the named benchmarks (all when none is named) against a scratch
- * database on the test cluster (LOADLINE_DB_PORT, default 54339; start it with npm run db:start).
+ * npm run bench [-- name...]: runs the named benchmarks (all when none is named). The catalogue ones use a
+ * scratch database on the test cluster (LOADLINE_DB_PORT, default 54339; start it with npm run db:start).
  */
+import { benchCalculations } from './calculations';
 import { prepareDatabase } from './lib';
 
-const benches: Record<string, () => Promise<{ run: () => Promise<void> }>> = {
-  recommendations: () => import('./recommendations.bench'),
-  'csv-import': () => import('./csv-import.bench'),
+const benches: Record<string, () => Promise<void>> = {
+  calculations: benchCalculations,
+  recommendations: async () => (await import('./recommendations.bench')).run(),
+  'csv-import': async () => (await import('./csv-import.bench')).run(),
 };
+const needDatabase = new Set(['recommendations', 'csv-import']);
 
-const asked = process.argv.slice(2).filter((a) => a !== '--');
-const unknown = asked.filter((a) => !(a in benches));
+const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
+const names = wanted.length ? wanted : Object.keys(benches);
+const unknown = names.filter((n) => !benches[n]);
 if (unknown.length) {
-  console.error(`Unknown benchmark(s): ${unknown.join(', ')}. Known: ${Object.keys(benches).join(', ')}`);
+  console.error(`unknown benchmark '${unknown.join("', '")}'; known: ${Object.keys(benches).join(', ')}`);
   process.exit(2);
 }
-await prepareDatabase();
-for (const name of asked.length ? asked : Object.keys(benches)) await (await benches[name]!()).run();
+// Before any server module is imported: they read DATABASE_URL once, on import.
+if (names.some((n) => needDatabase.has(n))) await prepareDatabase();
+for (const name of names) {
+  console.log(`\n== ${name} ==`);
+  await benches[name]!();
+}
 const { AppDataSource } = await import('../server/db/data-source');
 if (AppDataSource.isInitialized) await AppDataSource.destroy();
+process.exit(0);

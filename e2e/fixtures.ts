@@ -1,5 +1,7 @@
-import { test as base, expect, type Page } from '@playwright/test';
+import { test as base, expect, type APIRequestContext, type Page } from '@playwright/test';
+import type { FitmentDto, FitmentInputDto, ProductInputDto, StaffProductDto } from '../shared/catalogue';
 import { SignInPage } from './pages/sign-in.page';
+import { e2eFitment, e2eSpring } from './support/catalogue-data';
 
 export const demoPassword = 'loadline-demo';
 export const demo = {
@@ -10,7 +12,20 @@ export const demo = {
 } as const;
 export type DemoRole = keyof typeof demo;
 
-type Fixtures = { signIn: (role: DemoRole) => Promise<Page> };
+/** Records a test makes through the staff API; each is deleted after the test so the seeded data stays as it was. */
+export interface Catalogue {
+  createFitment: (overrides?: Partial<FitmentInputDto>) => Promise<FitmentDto>;
+  createSpring: (overrides?: Partial<ProductInputDto>) => Promise<StaffProductDto>;
+  /** A record the UI made, to be deleted after the test too. */
+  forget: (kind: 'fitment' | 'product', id: string) => void;
+}
+
+type Fixtures = { signIn: (role: DemoRole) => Promise<Page>; catalogue: Catalogue };
+
+async function ok<T>(what: string, res: Awaited<ReturnType<APIRequestContext['post']>>): Promise<T> {
+  if (!res.ok()) throw new Error(`${what}: ${res.status()} ${await res.text()}`);
+  return (await res.json()) as T;
+}
 
 export const test = base.extend<Fixtures>({
   signIn: async ({ page }, use) => {
@@ -21,6 +36,27 @@ export const test = base.extend<Fixtures>({
       await expect(page.getByTestId('signed-in-as')).toContainText(role);
       return page;
     });
+  },
+  // Uses the page's own request context, so it acts with whoever signed in (staff) and shares the cookie.
+  catalogue: async ({ page }, use) => {
+    const made: { kind: 'fitment' | 'product'; id: string }[] = [];
+    const api = page.request;
+    await use({
+      createFitment: async (overrides) => {
+        const f = await ok<FitmentDto>('create fitment', await api.post('/api/staff/fitments', { data: e2eFitment(overrides) }));
+        made.push({ kind: 'fitment', id: f.id });
+        return f;
+      },
+      createSpring: async (overrides) => {
+        const p = await ok<StaffProductDto>('create spring', await api.post('/api/staff/products', { data: e2eSpring(overrides) }));
+        made.push({ kind: 'product', id: p.id });
+        return p;
+      },
+      forget: (kind, id) => made.push({ kind, id }),
+    });
+    for (const m of made.reverse()) {
+      await api.delete(`/api/staff/${m.kind === 'fitment' ? 'fitments' : 'products'}/${m.id}`);
+    }
   },
 });
 export { expect };

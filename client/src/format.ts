@@ -57,10 +57,16 @@ export function formatFtLbf(nm: number | null | undefined): string {
   return formatQuantity(nmToFtLbf(nm), 'ft·lbf', 1);
 }
 
+/** A spring rate's other units, e.g. "4.08 kgf/mm · 228 lbf/in". */
+export function formatRateAlternatives(nPerMm: number | null | undefined): string {
+  if (nPerMm === null || nPerMm === undefined || !Number.isFinite(nPerMm)) return '—';
+  return `${formatQuantity(nPerMmToKgfPerMm(nPerMm), 'kgf/mm', 2)} · ${formatQuantity(nPerMmToLbfPerIn(nPerMm), 'lbf/in', 0)}`;
+}
+
 /** A spring rate in N/mm with kgf/mm and lbf/in beside it. */
 export function formatRate(nPerMm: number | null | undefined): string {
   if (nPerMm === null || nPerMm === undefined || !Number.isFinite(nPerMm)) return '—';
-  return `${formatQuantity(nPerMm, 'N/mm', 2)} (${formatQuantity(nPerMmToKgfPerMm(nPerMm), 'kgf/mm', 2)}, ${formatQuantity(nPerMmToLbfPerIn(nPerMm), 'lbf/in', 0)})`;
+  return `${formatQuantity(nPerMm, 'N/mm', 2)} (${formatRateAlternatives(nPerMm)})`;
 }
 
 /** A relative difference as a signed percentage, e.g. 0.062 → "+6.2 %". */

@@ -1,4 +1,4 @@
-import { createRouter, createWebHistory, type RouteLocationRaw, type RouteRecordRaw } from 'vue-router';
+import { createRouter, createWebHistory, type LocationQueryRaw, type RouteLocationRaw, type RouteParamsRaw, type RouteRecordRaw } from 'vue-router';
 import type { Area } from '@shared/roles';
 import AppShell from '../layouts/AppShell.vue';
 import HomePage from '../pages/shop/HomePage.vue';
@@ -14,6 +14,15 @@ export const routeNames = [
   'forgot-password',
   'reset-password',
   'staff-home',
+  'staff-fitments',
+  'staff-fitment-new',
+  'staff-fitment-edit',
+  'staff-fitment-import',
+  'staff-products',
+  'staff-product-new',
+  'staff-product-edit',
+  'staff-stock',
+  'staff-audit',
   'warehouse-home',
   'admin-users',
   'forbidden',
@@ -22,7 +31,7 @@ export const routeNames = [
 export type RouteName = (typeof routeNames)[number];
 
 /** A typed link target, so a link cannot name a route that does not exist. */
-export function to(name: RouteName, extra: Omit<Exclude<RouteLocationRaw, string>, 'name'> = {}): RouteLocationRaw {
+export function to(name: RouteName, extra: { params?: RouteParamsRaw; query?: LocationQueryRaw; hash?: string; replace?: boolean } = {}): RouteLocationRaw {
   return { ...extra, name } as RouteLocationRaw;
 }
 
@@ -36,7 +45,8 @@ declare module 'vue-router' {
 
 type NamedRoute = RouteRecordRaw & { name: RouteName };
 
-const children: NamedRoute[] = [
+// A named page, or a nameless layout whose children are named pages.
+const children: (NamedRoute | (RouteRecordRaw & { children: NamedRoute[] }))[] = [
   { path: '', name: 'home', component: HomePage, meta: { title: 'Springs for the way you ride' } },
   { path: 'find', name: 'find-springs', component: () => import('../pages/shop/FindSpringsPage.vue'), meta: { title: 'Find your springs' } },
   { path: 'setup-sheet', name: 'setup-sheet', component: () => import('../pages/shop/SetupSheetPage.vue'), meta: { title: 'Setup sheet' } },
@@ -45,7 +55,24 @@ const children: NamedRoute[] = [
   { path: 'register', name: 'register', component: () => import('../pages/account/RegisterPage.vue'), meta: { guestOnly: true, title: 'Create an account' } },
   { path: 'forgot-password', name: 'forgot-password', component: () => import('../pages/account/ForgotPasswordPage.vue'), meta: { title: 'Forgot password' } },
   { path: 'reset-password', name: 'reset-password', component: () => import('../pages/account/ResetPasswordPage.vue'), meta: { title: 'Choose a new password' } },
-  { path: 'staff', name: 'staff-home', component: () => import('../pages/staff/StaffHomePage.vue'), meta: { area: 'staff', title: 'Back office' } },
+  // The back office is one lazy chunk behind its own layout, so a rider's first page never carries its tables and editors.
+  {
+    path: 'staff',
+    component: () => import('../layouts/StaffLayout.vue'),
+    meta: { area: 'staff' },
+    children: [
+      { path: '', name: 'staff-home', component: () => import('../pages/staff/StaffHomePage.vue'), meta: { title: 'Back office' } },
+      { path: 'fitments', name: 'staff-fitments', component: () => import('../pages/staff/StaffFitmentsPage.vue'), meta: { title: 'Fitments' } },
+      { path: 'fitments/new', name: 'staff-fitment-new', component: () => import('../pages/staff/StaffFitmentEditPage.vue'), meta: { title: 'New fitment' } },
+      { path: 'fitments/import', name: 'staff-fitment-import', component: () => import('../pages/staff/StaffFitmentImportPage.vue'), meta: { title: 'Import fitments' } },
+      { path: 'fitments/:id', name: 'staff-fitment-edit', component: () => import('../pages/staff/StaffFitmentEditPage.vue'), props: true, meta: { title: 'Edit fitment' } },
+      { path: 'products', name: 'staff-products', component: () => import('../pages/staff/StaffProductsPage.vue'), meta: { title: 'Products' } },
+      { path: 'products/new', name: 'staff-product-new', component: () => import('../pages/staff/StaffProductEditPage.vue'), meta: { title: 'New product' } },
+      { path: 'products/:id', name: 'staff-product-edit', component: () => import('../pages/staff/StaffProductEditPage.vue'), props: true, meta: { title: 'Edit product' } },
+      { path: 'stock', name: 'staff-stock', component: () => import('../pages/staff/StaffStockPage.vue'), meta: { title: 'Stock' } },
+      { path: 'audit', name: 'staff-audit', component: () => import('../pages/staff/StaffAuditPage.vue'), meta: { title: 'Audit log' } },
+    ] satisfies NamedRoute[],
+  },
   { path: 'warehouse', name: 'warehouse-home', component: () => import('../pages/warehouse/WarehouseHomePage.vue'), meta: { area: 'warehouse', title: 'Warehouse' } },
   { path: 'admin/users', name: 'admin-users', component: () => import('../pages/admin/UsersPage.vue'), meta: { area: 'admin', title: 'Accounts' } },
   { path: 'forbidden', name: 'forbidden', component: () => import('../pages/ForbiddenPage.vue'), meta: { title: 'Not for this account' } },

@@ -1,0 +1,266 @@
+import type { FitmentDto, LoadStationKind, SagEndDto } from '@shared/catalogue';
+import { sprungFromWetMass } from '../fitment-math';
+import { stationKinds } from '../catalogue-labels';
+import type { FitmentInput } from '../api/staff-catalogue';
+
+type N = number | null;
+
+/** A quantity field of the fitment form: its label, unit and the range the server also enforces. */
+export interface QuantitySpec {
+  label: string;
+  unit: string;
+  min: number;
+  max: number;
+  integer?: boolean;
+  optional?: boolean;
+  hint?: string;
+  /** 'named' words a range message as the server does for springs: "Wire diameter is at most 25 mm." */
+  phrasing?: 'must' | 'named';
+}
+
+// Ranges mirror FitmentInputDto so staff see the server's rule before they press save.
+export const quantities = {
+  yearFrom: { label: 'First year', unit: 'year', min: 1950, max: 2100, integer: true },
+  yearTo: { label: 'Last year', unit: 'year', min: 1950, max: 2100, integer: true },
+  frontSprungMassKg: { label: 'Front sprung mass', unit: 'kg', min: 20, max: 400 },
+  rearSprungMassKg: { label: 'Rear sprung mass', unit: 'kg', min: 20, max: 400 },
+  wetMassKg: { label: 'Wet mass', unit: 'kg', min: 80, max: 600, hint: 'Ready to ride: fluids and a full tank.' },
+  frontStaticSharePct: { label: 'Front share of wet mass', unit: '%', min: 30, max: 70 },
+  frontUnsprungMassKg: { label: 'Front unsprung mass', unit: 'kg', min: 5, max: 60 },
+  rearUnsprungMassKg: { label: 'Rear unsprung mass', unit: 'kg', min: 5, max: 60 },
+  ratedLoadKg: { label: 'Rated load', unit: 'kg', min: 50, max: 400, hint: 'The most the bike may carry: riders, gear and luggage.' },
+  wheelbaseMm: { label: 'Wheelbase', unit: 'mm', min: 1000, max: 2000 },
+  rearLeverageRatio: { label: 'Leverage ratio', unit: ':1', min: 1, max: 5, hint: 'Wheel travel over shock travel.' },
+  rearWheelTravelMm: { label: 'Rear wheel travel', unit: 'mm', min: 50, max: 350 },
+  shockStrokeMm: { label: 'Shock stroke', unit: 'mm', min: 20, max: 150 },
+  rearPreloadMinMm: { label: 'Rear preload minimum', unit: 'mm', min: 0, max: 40 },
+  rearPreloadMaxMm: { label: 'Rear preload maximum', unit: 'mm', min: 0, max: 40 },
+  rearAdjusterPitchMm: { label: 'Rear adjuster pitch', unit: 'mm/turn', min: 0.1, max: 5 },
+  shockSpringInnerDiameterMm: { label: 'Shock spring inner diameter', unit: 'mm', min: 10, max: 100 },
+  shockSpringFreeLengthMinMm: { label: 'Shock spring free length from', unit: 'mm', min: 50, max: 700 },
+  shockSpringFreeLengthMaxMm: { label: 'Shock spring free length to', unit: 'mm', min: 50, max: 700 },
+  forkAngleDeg: { label: 'Fork angle', unit: '°', min: 0, max: 40, hint: 'From vertical.' },
+  forkTravelMm: { label: 'Fork travel', unit: 'mm', min: 50, max: 350 },
+  forkSpringCount: { label: 'Fork springs', unit: 'springs', min: 1, max: 2, integer: true },
+  forkPreloadMinMm: { label: 'Fork preload minimum', unit: 'mm', min: 0, max: 40 },
+  forkPreloadMaxMm: { label: 'Fork preload maximum', unit: 'mm', min: 0, max: 40 },
+  forkAdjusterPitchMm: { label: 'Fork adjuster pitch', unit: 'mm/turn', min: 0.1, max: 5, optional: true, hint: 'Leave empty when the fork has no preload adjuster.' },
+  forkSpringInnerDiameterMm: { label: 'Fork spring inner diameter', unit: 'mm', min: 10, max: 100 },
+  forkSpringFreeLengthMinMm: { label: 'Fork spring free length from', unit: 'mm', min: 50, max: 700 },
+  forkSpringFreeLengthMaxMm: { label: 'Fork spring free length to', unit: 'mm', min: 50, max: 700 },
+  stockForkRateNPerMm: { label: 'Stock fork spring rate', unit: 'N/mm', min: 1, max: 300 },
+  stockForkFreeLengthMm: { label: 'Stock fork spring free length', unit: 'mm', min: 50, max: 700 },
+  stockShockRateNPerMm: { label: 'Stock shock spring rate', unit: 'N/mm', min: 1, max: 300 },
+  stockShockFreeLengthMm: { label: 'Stock shock spring free length', unit: 'mm', min: 50, max: 700 },
+} as const satisfies Record<string, QuantitySpec>;
+
+export type QuantityKey = keyof typeof quantities;
+
+export interface StationDraft {
+  present: boolean;
+  positionMm: N;
+  maxLoadKg: N;
+}
+export interface SagPairDraft {
+  static: N;
+  rider: N;
+}
+export interface SagEndDraft {
+  unit: 'mm' | 'pct';
+  road: SagPairDraft;
+  adventure: SagPairDraft;
+  offRoad: SagPairDraft;
+}
+
+export type FitmentDraft = { [K in QuantityKey]: N } & {
+  make: string;
+  model: string;
+  variant: string;
+  massInput: 'sprung' | 'wet';
+  stations: Record<LoadStationKind, StationDraft>;
+  leverageMode: 'ratio' | 'curve';
+  rearLeverageCurve: { wheelTravelMm: N; ratio: N }[];
+  sag: { front: SagEndDraft; rear: SagEndDraft };
+  torques: { fastener: string; torqueNm: N }[];
+  tools: string[];
+  notes: string;
+};
+
+const pair = (): SagPairDraft => ({ static: null, rider: null });
+const sagEnd = (): SagEndDraft => ({ unit: 'mm', road: pair(), adventure: pair(), offRoad: pair() });
+
+export function emptyFitmentDraft(): FitmentDraft {
+  const numbers = Object.fromEntries(Object.keys(quantities).map((k) => [k, null])) as { [K in QuantityKey]: N };
+  return {
+    ...numbers,
+    forkSpringCount: 2,
+    make: '',
+    model: '',
+    variant: '',
+    massInput: 'sprung',
+    stations: Object.fromEntries(stationKinds.map((k) => [k, { present: k === 'rider', positionMm: null, maxLoadKg: null }])) as Record<LoadStationKind, StationDraft>,
+    leverageMode: 'ratio',
+    rearLeverageCurve: [
+      { wheelTravelMm: 0, ratio: null },
+      { wheelTravelMm: null, ratio: null },
+    ],
+    sag: { front: sagEnd(), rear: sagEnd() },
+    torques: [],
+    tools: [],
+    notes: '',
+  };
+}
+
+const sagFrom = (e: SagEndDto): SagEndDraft => ({
+  unit: e.unit,
+  road: { ...e.road },
+  adventure: { ...e.adventure },
+  offRoad: { ...e.offRoad },
+});
+
+export function draftFromFitment(f: FitmentDto): FitmentDraft {
+  const d = emptyFitmentDraft();
+  for (const k of Object.keys(quantities) as QuantityKey[]) d[k] = (f as unknown as Record<QuantityKey, N>)[k] ?? null;
+  d.make = f.make;
+  d.model = f.model;
+  d.variant = f.variant;
+  d.massInput = f.massInput;
+  for (const s of f.loadStations) d.stations[s.station] = { present: true, positionMm: s.positionMm, maxLoadKg: s.maxLoadKg };
+  if (f.rearLeverageCurve) {
+    d.leverageMode = 'curve';
+    d.rearLeverageCurve = f.rearLeverageCurve.map((p) => ({ ...p }));
+  }
+  d.sag = { front: sagFrom(f.sag.front), rear: sagFrom(f.sag.rear) };
+  d.torques = f.torques.map((t) => ({ fastener: t.fastener, torqueNm: t.torqueNm }));
+  d.tools = [...f.tools];
+  d.notes = f.notes;
+  return d;
+}
+
+/** The stations the bike has, in the order they are sent; a server path `loadStations.i.*` indexes this list. */
+export const presentStations = (d: FitmentDraft): LoadStationKind[] => stationKinds.filter((k) => d.stations[k].present);
+
+const massKeys = { sprung: ['frontSprungMassKg', 'rearSprungMassKg'], wet: ['wetMassKg', 'frontStaticSharePct', 'frontUnsprungMassKg', 'rearUnsprungMassKg'] } as const;
+
+/** The request body; call after `checkFitmentDraft` found nothing, so numbers are numbers. */
+export function fitmentInputFromDraft(d: FitmentDraft): FitmentInput {
+  const n = (v: N) => v as number;
+  const wet = d.massInput === 'wet';
+  const sendMass = (k: (typeof massKeys)['sprung' | 'wet'][number]) => ((massKeys[d.massInput] as readonly string[]).includes(k) ? d[k] : null);
+  return {
+    make: d.make.trim(),
+    model: d.model.trim(),
+    variant: d.variant.trim(),
+    yearFrom: n(d.yearFrom),
+    yearTo: n(d.yearTo),
+    massInput: d.massInput,
+    frontSprungMassKg: wet ? null : sendMass('frontSprungMassKg'),
+    rearSprungMassKg: wet ? null : sendMass('rearSprungMassKg'),
+    wetMassKg: sendMass('wetMassKg'),
+    frontStaticSharePct: sendMass('frontStaticSharePct'),
+    frontUnsprungMassKg: sendMass('frontUnsprungMassKg'),
+    rearUnsprungMassKg: sendMass('rearUnsprungMassKg'),
+    ratedLoadKg: n(d.ratedLoadKg),
+    wheelbaseMm: n(d.wheelbaseMm),
+    loadStations: presentStations(d).map((station) => ({ station, positionMm: n(d.stations[station].positionMm), maxLoadKg: n(d.stations[station].maxLoadKg) })),
+    rearLeverageRatio: d.leverageMode === 'ratio' ? d.rearLeverageRatio : null,
+    rearLeverageCurve: d.leverageMode === 'curve' ? d.rearLeverageCurve.map((p) => ({ wheelTravelMm: n(p.wheelTravelMm), ratio: n(p.ratio) })) : null,
+    rearWheelTravelMm: n(d.rearWheelTravelMm),
+    shockStrokeMm: n(d.shockStrokeMm),
+    rearPreloadMinMm: n(d.rearPreloadMinMm),
+    rearPreloadMaxMm: n(d.rearPreloadMaxMm),
+    rearAdjusterPitchMm: n(d.rearAdjusterPitchMm),
+    shockSpringInnerDiameterMm: n(d.shockSpringInnerDiameterMm),
+    shockSpringFreeLengthMinMm: n(d.shockSpringFreeLengthMinMm),
+    shockSpringFreeLengthMaxMm: n(d.shockSpringFreeLengthMaxMm),
+    forkAngleDeg: n(d.forkAngleDeg),
+    forkTravelMm: n(d.forkTravelMm),
+    forkSpringCount: n(d.forkSpringCount),
+    forkPreloadMinMm: n(d.forkPreloadMinMm),
+    forkPreloadMaxMm: n(d.forkPreloadMaxMm),
+    forkAdjusterPitchMm: d.forkAdjusterPitchMm,
+    forkSpringInnerDiameterMm: n(d.forkSpringInnerDiameterMm),
+    forkSpringFreeLengthMinMm: n(d.forkSpringFreeLengthMinMm),
+    forkSpringFreeLengthMaxMm: n(d.forkSpringFreeLengthMaxMm),
+    sag: {
+      front: { unit: d.sag.front.unit, road: sagPair(d.sag.front.road), adventure: sagPair(d.sag.front.adventure), offRoad: sagPair(d.sag.front.offRoad) },
+      rear: { unit: d.sag.rear.unit, road: sagPair(d.sag.rear.road), adventure: sagPair(d.sag.rear.adventure), offRoad: sagPair(d.sag.rear.offRoad) },
+    },
+    stockForkRateNPerMm: n(d.stockForkRateNPerMm),
+    stockForkFreeLengthMm: n(d.stockForkFreeLengthMm),
+    stockShockRateNPerMm: n(d.stockShockRateNPerMm),
+    stockShockFreeLengthMm: n(d.stockShockFreeLengthMm),
+    torques: d.torques.map((t) => ({ fastener: t.fastener.trim(), torqueNm: n(t.torqueNm) })),
+    tools: d.tools.map((t) => t.trim()).filter((t) => t !== ''),
+    notes: d.notes,
+  };
+}
+
+const sagPair = (p: SagPairDraft) => ({ static: p.static as number, rider: p.rider as number });
+
+/** One number against its spec, in the server's words; '' when fine. */
+export function checkQuantity(value: N, spec: QuantitySpec): string {
+  if (value === null) return spec.optional ? '' : `Enter the ${spec.label.toLowerCase()}.`;
+  if (!Number.isFinite(value)) return `${spec.label} is a number.`;
+  if (spec.integer && !Number.isInteger(value)) return `${spec.label} is a whole number.`;
+  const lead = spec.phrasing === 'named' ? `${spec.label} is` : 'Must be';
+  if (value < spec.min) return `${lead} at least ${spec.min} ${spec.unit}.`;
+  if (value > spec.max) return `${lead} at most ${spec.max} ${spec.unit}.`;
+  return '';
+}
+
+/** Cheap checks before sending: what is missing, not a number, out of range or out of order. Keys are the server's field paths. */
+export function checkFitmentDraft(d: FitmentDraft): Record<string, string> {
+  const p: Record<string, string> = {};
+  const put = (key: string, message: string) => {
+    if (message && !p[key]) p[key] = message;
+  };
+  if (!d.make.trim()) put('make', 'Enter the make.');
+  if (!d.model.trim()) put('model', 'Enter the model.');
+  const skip = new Set<string>(d.massInput === 'wet' ? massKeys.sprung : massKeys.wet);
+  if (d.leverageMode === 'curve') skip.add('rearLeverageRatio');
+  for (const [key, spec] of Object.entries(quantities) as [QuantityKey, QuantitySpec][]) {
+    if (!skip.has(key)) put(key, checkQuantity(d[key], spec));
+  }
+  const both = (a: N, b: N) => a !== null && b !== null && Number.isFinite(a) && Number.isFinite(b);
+  if (both(d.yearFrom, d.yearTo) && (d.yearTo as number) < (d.yearFrom as number)) put('yearTo', 'The last year is not before the first.');
+  if (both(d.rearPreloadMinMm, d.rearPreloadMaxMm) && (d.rearPreloadMaxMm as number) < (d.rearPreloadMinMm as number)) put('rearPreloadMaxMm', 'The maximum is not below the minimum.');
+  if (both(d.forkPreloadMinMm, d.forkPreloadMaxMm) && (d.forkPreloadMaxMm as number) < (d.forkPreloadMinMm as number)) put('forkPreloadMaxMm', 'The maximum is not below the minimum.');
+  if (both(d.shockSpringFreeLengthMinMm, d.shockSpringFreeLengthMaxMm) && (d.shockSpringFreeLengthMaxMm as number) < (d.shockSpringFreeLengthMinMm as number)) put('shockSpringFreeLengthMaxMm', 'The longest is not below the shortest.');
+  if (both(d.forkSpringFreeLengthMinMm, d.forkSpringFreeLengthMaxMm) && (d.forkSpringFreeLengthMaxMm as number) < (d.forkSpringFreeLengthMinMm as number)) put('forkSpringFreeLengthMaxMm', 'The longest is not below the shortest.');
+
+  if (!d.stations.rider.present) put('loadStations', 'The rider seat is needed.');
+  presentStations(d).forEach((kind, i) => {
+    put(`loadStations.${i}.positionMm`, checkQuantity(d.stations[kind].positionMm, { label: 'Position', unit: 'mm', min: 0, max: 2500 }));
+    put(`loadStations.${i}.maxLoadKg`, checkQuantity(d.stations[kind].maxLoadKg, { label: 'Maximum load', unit: 'kg', min: 1, max: 250 }));
+  });
+  if (d.leverageMode === 'curve') {
+    if (d.rearLeverageCurve.length < 2) put('rearLeverageCurve', 'A curve has at least 2 points.');
+    d.rearLeverageCurve.forEach((pt, i) => {
+      put(`rearLeverageCurve.${i}.wheelTravelMm`, checkQuantity(pt.wheelTravelMm, { label: 'Wheel travel', unit: 'mm', min: 0, max: 400 }));
+      put(`rearLeverageCurve.${i}.ratio`, checkQuantity(pt.ratio, { label: 'Ratio', unit: '', min: 1, max: 5 }));
+      const prev = d.rearLeverageCurve[i - 1];
+      if (prev && both(prev.wheelTravelMm, pt.wheelTravelMm) && !((pt.wheelTravelMm as number) > (prev.wheelTravelMm as number))) {
+        put(`rearLeverageCurve.${i}.wheelTravelMm`, 'Points go in increasing wheel travel.');
+      }
+    });
+  }
+  for (const end of ['front', 'rear'] as const) {
+    for (const style of ['road', 'adventure', 'offRoad'] as const) {
+      const sp = d.sag[end][style];
+      put(`sag.${end}.${style}.static`, checkQuantity(sp.static, { label: 'Static sag', unit: d.sag[end].unit === 'pct' ? '%' : 'mm', min: 0, max: 200 }));
+      put(`sag.${end}.${style}.rider`, checkQuantity(sp.rider, { label: 'Rider sag', unit: d.sag[end].unit === 'pct' ? '%' : 'mm', min: 1, max: 200 }));
+      if (both(sp.static, sp.rider) && (sp.static as number) >= (sp.rider as number)) put(`sag.${end}.${style}.static`, 'Static sag is less than rider sag.');
+    }
+  }
+  d.torques.forEach((t, i) => {
+    if (!t.fastener.trim()) put(`torques.${i}.fastener`, 'Name the fastener.');
+    put(`torques.${i}.torqueNm`, checkQuantity(t.torqueNm, { label: 'Torque', unit: 'N·m', min: 0.5, max: 500 }));
+  });
+  if (d.massInput === 'wet') {
+    const s = sprungFromWetMass(d);
+    if (s && s.frontSprungMassKg < 20) put('frontUnsprungMassKg', 'This leaves less than 20 kg sprung on the front.');
+    if (s && s.rearSprungMassKg < 20) put('rearUnsprungMassKg', 'This leaves less than 20 kg sprung on the rear.');
+  }
+  return p;
+}

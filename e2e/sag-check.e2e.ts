@@ -1,0 +1,36 @@
+import { expect, test } from './fixtures';
+import { SagCheckPage } from './pages/sag-check.page';
+
+test('a rider enters sag readings and is told, as they type, how much preload to add', async ({ page }) => {
+  const sag = new SagCheckPage(page);
+  await sag.open();
+  await sag.fill('Static sag target', 25);
+  await sag.fill('Rider sag target', 66);
+  await sag.fill('Leverage ratio', 2);
+  await sag.fill('Adjuster pitch', 1);
+  await sag.fill('Fully extended', 600);
+  await sag.fill('On its own weight', 575);
+  await sag.fill('With you aboard', 524);
+  // Rider sag 76 mm against 66 mm at a 2:1 ratio: (76 − 66)/2 = 5 mm more preload.
+  await expect(sag.advice()).toContainText('Add 5 mm of preload');
+  await sag.fill('With you aboard', 540);
+  // Rider sag 60 mm: (60 − 66)/2 = −3 mm, so take preload away.
+  await expect(sag.advice()).toContainText('Remove 3 mm of preload');
+});
+
+test('push-down and let-up readings are averaged', async ({ page }) => {
+  const sag = new SagCheckPage(page);
+  await sag.open();
+  await page.getByLabel('I took push-down and let-up readings').check();
+  await sag.fill('Static sag target', 25);
+  await sag.fill('Rider sag target', 66);
+  await sag.fill('Leverage ratio', 2);
+  await sag.fill('Adjuster pitch', 1);
+  await sag.fill('Fully extended', 600);
+  await sag.fill('Own weight, pushed down', 572);
+  await sag.fill('Own weight, let up', 578);
+  await sag.fill('Aboard, pushed down', 530);
+  await sag.fill('Aboard, let up', 538);
+  // Averages 575 and 534: static 25 mm, rider 66 mm — on target.
+  await expect(sag.advice()).toContainText('no change is needed');
+});
