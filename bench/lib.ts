@@ -48,7 +48,8 @@ function serve(mode: 'app' | 'baseline', overrides: Record<string, unknown> = {}
   // BENCH_CPU_PROF=<dir> writes a CPU profile of the app's process, to see where its time goes.
   const prof = mode === 'app' && process.env.BENCH_CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROF}`] : [];
   const child = spawn(process.execPath, [...prof, ...process.execArgv, fileURLToPath(new URL('./serve.ts', import.meta.url)), mode, JSON.stringify(overrides)], {
-    env: process.env,
+    // Served as in production (Express's production mode, no per-request debug work); the seed ran as test.
+    env: { ...process.env, NODE_ENV: 'production' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   return new Promise((resolve, reject) => {
