@@ -45,17 +45,20 @@ export function createApp(config: Config = getConfig()): Express {
       strictTransportSecurity: config.secureCookies,
     }),
   );
-  app.use(
-    pinoHttp({
-      level: config.logLevel,
-      autoLogging: { ignore: (req) => req.url === '/api/health' },
-      // Headers carry session cookies and tokens; log only what is needed to follow a request.
-      serializers: {
-        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url.split('?')[0] }),
-        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
-      },
-    }),
-  );
+  // With logging off there is nothing to log per request, so no per-request logger is made (every req.log use is optional).
+  if (config.logLevel !== 'silent') {
+    app.use(
+      pinoHttp({
+        level: config.logLevel,
+        autoLogging: { ignore: (req) => req.url === '/api/health' },
+        // Headers carry session cookies and tokens; log only what is needed to follow a request.
+        serializers: {
+          req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url.split('?')[0] }),
+          res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+        },
+      }),
+    );
+  }
   app.use(cookieParser());
 
   const api = express.Router();

@@ -121,4 +121,24 @@ describe('the fitment table as CSV', () => {
     expect(broken.body.details.problems[0].message).toMatch(/not valid CSV/);
     expect((await send('import', '')).status).toBe(400);
   });
+
+  it('a CSV of 5,000 fitments imports in one transaction, and one bad row among them stops them all', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const [row] = rowsOf(await exportCsv());
+    await http.delete(`/api/staff/fitments/${row!.id}`).set(staff.auth).expect(204);
+    const rows = Array.from({ length: 5000 }, (_, i) => ({ ...row!, id: '', model: `Ridgeline ${i}` }));
+    const bad = await send('import', csvOf([...rows.slice(0, 4999), { ...rows[4999]!, forkTravelMm: '-5' }]));
+    expect(bad.status).toBe(400);
+    expect(bad.body.details.problems).toEqual([{ line: 5001, column: 'forkTravelMm', message: expect.any(String) }]);
+    expect((await http.get('/api/fitments')).body.total).toBe(0);
+    const good = await send('import', csvOf(rows));
+    expect(good.status).toBe(200);
+    expect(good.body.created).toBe(5000);
+    // Every row written by one transaction carries that transaction's id in xmin.
+    const [{ n, tx }] = await AppDataSource.query(`SELECT count(*)::int AS n, count(DISTINCT xmin::text)::int AS tx FROM fitments`);
+    expect({ n, tx }).toEqual({ n: 5000, tx: 1 });
+    const [{ same }] = await AppDataSource.query(`SELECT bool_and(a.xmin::text = f.xmin::text) AS same FROM audit_log a JOIN fitments f ON f.id = a.entity_id WHERE a.action = 'import'`);
+    expect(same).toBe(true);
+  }, 60_000);
 });

@@ -105,16 +105,41 @@ export function placeLoads(f: FitmentDto, set: LoadSet, prefix = ''): { loads: R
 const round = (n: number) => Math.round(n * 10) / 10;
 const engineLoads = (loads: ResolvedLoadDto[]): Load[] => loads.map((l) => ({ massKg: l.massKg, positionMm: l.positionMm }));
 
+// Field by field rather than spread: this runs for every candidate of every request.
+function candidate(c: SpringCandidateResult): SpringCandidateDto {
+  const out: SpringCandidateDto = {
+    id: c.id,
+    rateNPerMm: c.rateNPerMm,
+    preloadNeededMm: c.preloadNeededMm,
+    preloadMm: c.preloadMm,
+    installedLengthMm: c.installedLengthMm,
+    staticSagMm: c.staticSagMm,
+    riderSagMm: c.riderSagMm,
+    verdict: c.verdict,
+  };
+  if (c.adjusterTurns !== undefined) out.adjusterTurns = c.adjusterTurns;
+  if (c.coilBindMarginMm !== undefined) out.coilBindMarginMm = c.coilBindMarginMm;
+  return out;
+}
+
 function enrich(bike: BikeData, c: SpringCandidateResult): RecommendedSpringDto {
   const s = bike.springs.get(c.id)!;
-  return { ...c, sku: s.sku, name: s.name, priceCents: s.priceCents, currency: 'EUR', inStock: s.inStock, freeLengthMm: s.freeLengthMm, adapters: s.adapters };
+  const out = candidate(c) as RecommendedSpringDto;
+  out.sku = s.sku;
+  out.name = s.name;
+  out.priceCents = s.priceCents;
+  out.currency = 'EUR';
+  out.inStock = s.inStock;
+  out.freeLengthMm = s.freeLengthMm;
+  out.adapters = s.adapters;
+  return out;
 }
 
 /** Splits the engine's candidates into the catalogue's (enriched) and the stock spring. */
 function split(bike: BikeData, candidates: SpringCandidateResult[]): { candidates: RecommendedSpringDto[]; stock: SpringCandidateDto } {
   return {
     candidates: candidates.filter((c) => c.id !== stockId).map((c) => enrich(bike, c)),
-    stock: candidates.find((c) => c.id === stockId)!,
+    stock: candidate(candidates.find((c) => c.id === stockId)!),
   };
 }
 
