@@ -10,7 +10,8 @@ const benches: Record<string, () => Promise<void>> = {
   recommendations: async () => (await import('./recommendations.bench')).run(),
   'csv-import': async () => (await import('./csv-import.bench')).run(),
 };
-const needDatabase = new Set(['recommendations', 'csv-import']);
+// The app process opens its database at start, so every bench that starts it needs one.
+const needDatabase = new Set(['calculations', 'recommendations', 'csv-import']);
 
 const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
 const names = wanted.length ? wanted : Object.keys(benches);

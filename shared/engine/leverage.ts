@@ -166,6 +166,8 @@ export function solveShockEquilibrium(curve: LeverageCurve, input: ShockEquilibr
     for (const pieceHi of cuts) {
       if (imbalance(r, pieceHi) >= 0) {
         if (r.b === 0) return Math.min(pieceHi, Math.max(pieceLo, r.x + r.a * ((r.a * F) / k - p - r.y0)));
+        // At a knot the next segment's own rounding can already read a balance; the crossing is then the knot itself.
+        if (imbalance(r, pieceLo) >= 0) return pieceLo;
         return brentRoot((s) => imbalance(r, s), pieceLo, pieceHi, { tolerance: 1e-7, maxIterations: 100 });
       }
       pieceLo = pieceHi;

@@ -250,3 +250,52 @@ describe('rear spring properties (fast-check)', () => {
     );
   });
 });
+
+describe('rear spring robustness', () => {
+  // A 10-point falling curve whose knots fall where rounding at a segment start once read as a balance (a found bug).
+  const tenPoint = Array.from({ length: 10 }, (_, i) => ({ wheelTravelMm: i * 22, ratio: 2.6 - i * 0.07 }));
+  const body = (riderKg: number): RearSpringInput => ({
+    wheelbaseMm: 1480,
+    sprungMassKg: 96,
+    loads: [
+      { massKg: riderKg, positionMm: 880 },
+      { massKg: 14, positionMm: 1720 },
+    ],
+    leverageRatio: tenPoint,
+    wheelTravelMm: 200,
+    shockStrokeMm: 90,
+    targets: { staticSagMm: 25, riderSagMm: 66 },
+    preloadRangeMm: { min: 2, max: 20 },
+    adjusterPitchMm: 1,
+    springs: Array.from({ length: 10 }, (_, i) => ({ id: `S-${50 + i * 5}`, rateNPerMm: 50 + i * 5, freeLengthMm: 229, solidLengthMm: 112 })),
+  });
+
+  it('answers a light rider on a ten-point curve instead of failing to find a balance at a knot', () => {
+    const r = computeRearSpring(body(70) as RearSpringInput & { loads: [] }) as RearSpringResult;
+    expect(r.candidates).toHaveLength(10);
+    for (const c of r.candidates) {
+      expect(c.staticSagMm).toBeGreaterThanOrEqual(0);
+      expect(c.riderSagMm).toBeLessThanOrEqual(200);
+    }
+  });
+
+  it('never throws for any valid rider mass and curve, and keeps every predicted sag inside the travel (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 40, max: 160, noNaN: true }),
+        fc.array(fc.double({ min: 1.2, max: 3.5, noNaN: true }), { minLength: 2, maxLength: 10 }),
+        fc.integer({ min: 5, max: 40 }),
+        (riderKg, ratios, step) => {
+          const input = { ...body(riderKg), leverageRatio: ratios.map((ratio, i) => ({ wheelTravelMm: i * step, ratio })) };
+          const r = computeRearSpring(input as RearSpringInput & { loads: [] }) as RearSpringResult;
+          for (const c of r.candidates) {
+            expect(c.staticSagMm).toBeGreaterThanOrEqual(0);
+            expect(c.riderSagMm).toBeLessThanOrEqual(200 + 1e-9);
+            expect(c.staticSagMm).toBeLessThanOrEqual(c.riderSagMm + 1e-9);
+          }
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+});
