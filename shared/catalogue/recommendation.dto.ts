@@ -15,6 +15,7 @@ import {
 import type { AdapterNeedDto } from './compatibility.dto';
 import { isIn, loadStationKinds, ridingStyles, type CurrencyCode, type LoadStationKind, type RateInUnitsDto, type RidingStyle } from './common';
 import type { FitmentSummaryDto } from './fitment.dto';
+import type { SpringCandidateResult, SpringVerdict } from '../engine/types';
 
 // ---------- request ----------
 
@@ -107,21 +108,10 @@ export const asEnteredCaseName = 'as entered';
 
 // ---------- response (the engine's fork-spring / rear-spring shapes, enriched) ----------
 
-export type SpringVerdictDto = 'ok' | 'too-soft' | 'too-stiff' | 'coil-bind';
+export type SpringVerdictDto = SpringVerdict;
 
-/** The engine's answer for one spring. */
-export interface SpringCandidateDto {
-  id: string;
-  rateNPerMm: number;
-  preloadNeededMm: number;
-  preloadMm: number;
-  adjusterTurns?: number;
-  installedLengthMm: number;
-  staticSagMm: number;
-  riderSagMm: number;
-  coilBindMarginMm?: number;
-  verdict: SpringVerdictDto;
-}
+/** The engine's answer for one spring, as it crosses the wire. */
+export type SpringCandidateDto = SpringCandidateResult;
 
 /** A catalogue spring's answer: `id` is the product id. */
 export interface RecommendedSpringDto extends SpringCandidateDto {
