@@ -1,21 +1,11 @@
 import { describe, expect, it } from 'vitest';
+import { rearSpringExample } from '../../shared/engine/examples';
 import { testApp } from '../test/factories';
 
 const g = 9.80665;
 
 const rearBody = () => ({
-  wheelbaseMm: 1500,
-  sprungMassKg: 95,
-  loads: [
-    { massKg: 80, positionMm: 900 },
-    { massKg: 12, positionMm: 1750 },
-  ],
-  leverageRatio: 2.1,
-  wheelTravelMm: 200,
-  shockStrokeMm: 95,
-  targets: { staticSagMm: 25, riderSagMm: 66 },
-  preloadRangeMm: { min: 2, max: 20 },
-  adjusterPitchMm: 1.0,
+  ...rearSpringExample(),
   springs: [
     { id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 },
     { id: 'R-65', rateNPerMm: 65, freeLengthMm: 229, solidLengthMm: 110 },

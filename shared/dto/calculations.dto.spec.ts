@@ -11,6 +11,7 @@ import {
   leverageRatioProblem,
 } from '../dto/calculations.dto';
 import { flattenValidationErrors } from './validation';
+import { forkSpringExample, rearSpringExample } from '../engine/examples';
 import { checkSag, computeForkSpring, computeRearSpring, computeSpringGeometry, isCasesResult } from '../engine/index';
 
 /** Validates the way the server does, returning dotted path → first message. */
@@ -20,32 +21,8 @@ async function check<T extends object>(cls: ClassConstructor<T>, body: unknown):
   return flattenValidationErrors(errors);
 }
 
-const rearBody = () => ({
-  wheelbaseMm: 1500,
-  sprungMassKg: 95,
-  loads: [
-    { massKg: 80, positionMm: 900 },
-    { massKg: 12, positionMm: 1750 },
-  ],
-  leverageRatio: 2.1 as unknown,
-  wheelTravelMm: 200,
-  shockStrokeMm: 95,
-  targets: { staticSagMm: 25, riderSagMm: 66 },
-  preloadRangeMm: { min: 2, max: 20 },
-  adjusterPitchMm: 1.0,
-  springs: [{ id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 }] as unknown[],
-});
-
-const forkBody = () => ({
-  wheelbaseMm: 1500,
-  sprungMassKg: 110,
-  loads: [{ massKg: 80, positionMm: 900 }],
-  forkAngleDeg: 25,
-  forkTravelMm: 120,
-  targets: { staticSagMm: 25, riderSagMm: 35 },
-  preloadRangeMm: { min: 0, max: 15 },
-  springs: [{ id: 'F-9', rateNPerMm: 9, freeLengthMm: 300 }],
-});
+const rearBody = () => ({ ...rearSpringExample(), leverageRatio: 2.1 as unknown, springs: rearSpringExample().springs as unknown[] });
+const forkBody = forkSpringExample;
 
 describe('rear-spring request', () => {
   it('accepts the issue’s example and hands the engine a ready input', async () => {

@@ -3,23 +3,13 @@ import fc from 'fast-check';
 import { g } from '../units';
 import { createLeverageCurve, solveShockEquilibrium } from './leverage';
 import { isCasesResult } from './candidates';
+import { rearSpringExample } from './examples';
 import { computeRearSpring, rearPreloadNeeded, rearRequiredRate } from './rear';
 import type { LeveragePoint, RearSpringInput, RearSpringResult } from './types';
 
 /** The request body from the issue (POST /api/calculations/rear-spring). */
 const issueExample = {
-  wheelbaseMm: 1500,
-  sprungMassKg: 95,
-  loads: [
-    { massKg: 80, positionMm: 900 },
-    { massKg: 12, positionMm: 1750 },
-  ],
-  leverageRatio: 2.1,
-  wheelTravelMm: 200,
-  shockStrokeMm: 95,
-  targets: { staticSagMm: 25, riderSagMm: 66 },
-  preloadRangeMm: { min: 2, max: 20 },
-  adjusterPitchMm: 1.0,
+  ...rearSpringExample(),
   springs: [
     { id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 },
     { id: 'R-75', rateNPerMm: 75, freeLengthMm: 229, solidLengthMm: 110 },
