@@ -5,7 +5,7 @@ import type { ForkSpringInput, Load, RearSpringInput } from './types';
  * at 900 mm and a 12 kg top case behind the rear axle of a 1500 mm wheelbase.
  * @example computeRearSpring(rearSpringExample()).rearLoadN // 608.0123
  */
-export function rearSpringExample(): RearSpringInput & { loads: Load[] } {
+export function rearSpringExample(): RearSpringInput & { loads: Load[]; cases?: undefined } {
   return {
     wheelbaseMm: 1500,
     sprungMassKg: 95,
@@ -24,7 +24,7 @@ export function rearSpringExample(): RearSpringInput & { loads: Load[] } {
 }
 
 /** A fork-spring request of the same shape: an 80 kg rider on a 25° fork with two springs. */
-export function forkSpringExample(): ForkSpringInput & { loads: Load[] } {
+export function forkSpringExample(): ForkSpringInput & { loads: Load[]; cases?: undefined } {
   return {
     wheelbaseMm: 1500,
     sprungMassKg: 110,
