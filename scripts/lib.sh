@@ -14,7 +14,7 @@ apt_install() {
   log "installing ${missing[*]} from Debian…"
   export DEBIAN_FRONTEND=noninteractive
   apt-get update -qq >/dev/null
-  apt-get install -y -qq --no-install-recommends "${missing[@]}" >/dev/null
+  apt-get install -y -qq "${missing[@]}" >/dev/null
 }
 
 # npm ci when node_modules is missing or older than the lock file it was installed from.
