@@ -14,8 +14,10 @@ import {
   Max,
   MaxLength,
   Min,
+  ValidateBy,
   ValidateIf,
   ValidateNested,
+  type ValidationArguments,
   ArrayMaxSize,
 } from 'class-validator';
 import {
@@ -277,12 +279,57 @@ export class ProductInputDto {
   spring?: SpringDetailsInputDto | null;
 }
 
-/** PATCH /api/staff/products/:id/stock: set the count after a stock take, optionally the bin. */
+/** The largest single stock change, either way; a bigger one is a typo, not a delivery. */
+export const maxStockChange = 100_000;
+
+/**
+ * PATCH /api/staff/products/:id/stock: exactly one of `stockOnHand` (set the count after a stock take) or
+ * `change` (add a delivery, take out a breakage: applied on the server, so a sale in between is kept).
+ */
 export class StockUpdateDto {
-  @IsInt({ message: 'Stock on hand is a whole number.' })
-  @Min(0, { message: 'Stock on hand is not negative.' })
-  @Max(100_000, { message: 'Stock on hand is at most 100000.' })
-  stockOnHand!: number;
+  @ValidateIf((o: StockUpdateDto) => o.change === undefined)
+  @ValidateBy(
+    { name: 'stockOnHand', validator: { validate: (v: unknown) => Number.isInteger(v) && (v as number) >= 0 && (v as number) <= 100_000 } },
+    {
+      message: (args: ValidationArguments) =>
+        args.value === undefined
+          ? 'Give the count on the shelf, or a change by an amount.'
+          : !Number.isInteger(args.value)
+            ? 'Stock on hand is a whole number.'
+            : (args.value as number) < 0
+              ? 'Stock on hand is not negative.'
+              : 'Stock on hand is at most 100000.',
+    },
+  )
+  stockOnHand?: number;
+
+  @ValidateIf((o: StockUpdateDto) => o.change !== undefined)
+  @ValidateBy(
+    {
+      name: 'stockChange',
+      validator: {
+        validate: (v: unknown, args?: ValidationArguments) =>
+          (args?.object as StockUpdateDto | undefined)?.stockOnHand === undefined && Number.isInteger(v) && v !== 0 && Math.abs(v as number) <= maxStockChange,
+      },
+    },
+    {
+      message: (args: ValidationArguments) =>
+        (args.object as StockUpdateDto).stockOnHand !== undefined
+          ? 'Give either a change or the count on the shelf, not both.'
+          : !Number.isInteger(args.value)
+            ? 'The change is a whole number of pieces.'
+            : args.value === 0
+              ? 'A change of 0 changes nothing.'
+              : `A change is at most ${maxStockChange} pieces either way.`,
+    },
+  )
+  change?: number;
+
+  /** Why the stock moved (delivery, breakage, count); kept in the audit log. */
+  @IsOptional()
+  @IsString({ message: 'The reason is text.' })
+  @MaxLength(200, { message: 'A reason has at most 200 characters.' })
+  reason?: string;
 
   @IsOptional()
   @IsString({ message: 'Bin location is text.' })
