@@ -22,11 +22,15 @@ import {
 } from 'class-validator';
 import {
   isIn,
+  maxStockChange,
   PageQueryDto,
   productKinds,
+  productSortFields,
+  skuPattern,
   sortValues,
   springEnds,
   springEndTypes,
+  currency,
   type CurrencyCode,
   type ProductKind,
   type RateInUnitsDto,
@@ -111,8 +115,6 @@ export interface SpringOptionsDto {
 }
 
 // ---------- requests ----------
-
-export const productSortFields = ['name', 'sku', 'price', 'rate', 'stock', 'updatedAt'] as const;
 
 const boolString = (what: string) => IsIn(['true', 'false'], { message: `${what} is true or false.` });
 
@@ -234,7 +236,7 @@ export class SpringDetailsInputDto extends SpringGeometryFieldsDto {
 /** POST /api/staff/products and PUT /api/staff/products/:id body (a full replacement; images are separate). */
 export class ProductInputDto {
   @IsString({ message: 'Enter a SKU.' })
-  @Matches(/^[A-Z0-9][A-Z0-9-]{2,39}$/, { message: 'A SKU has 3 to 40 capital letters, digits and dashes.' })
+  @Matches(skuPattern, { message: 'A SKU has 3 to 40 capital letters, digits and dashes.' })
   sku!: string;
 
   @IsString({ message: 'Enter a name.' })
@@ -255,7 +257,7 @@ export class ProductInputDto {
   priceCents!: number;
 
   @IsOptional()
-  @IsIn(['EUR'], { message: 'Currency is EUR.' })
+  @IsIn([currency], { message: `Currency is ${currency}.` })
   currency?: CurrencyCode;
 
   @IsInt({ message: 'Stock on hand is a whole number.' })
@@ -278,9 +280,6 @@ export class ProductInputDto {
   @Type(() => SpringDetailsInputDto)
   spring?: SpringDetailsInputDto | null;
 }
-
-/** The largest single stock change, either way; a bigger one is a typo, not a delivery. */
-export const maxStockChange = 100_000;
 
 /**
  * PATCH /api/staff/products/:id/stock: exactly one of `stockOnHand` (set the count after a stock take) or

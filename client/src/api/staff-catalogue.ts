@@ -1,4 +1,4 @@
-// Types only from the shared contract: its modules carry class-validator decorators that must stay out of the bundle.
+// Types only from the DTO modules (their class-validator decorators must stay out of the bundle); values come from @shared/catalogue/constants.
 import type {
   AuditEntityType,
   AuditEntryDto,
