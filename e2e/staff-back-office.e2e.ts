@@ -28,7 +28,7 @@ test.describe('staff keep the fitment table', () => {
     await form.field('Wheelbase').fill('1530');
     await expect(await form.errorOf('Wheelbase')).toHaveCount(0);
 
-    // The server's check across fields: wheel travel over shock stroke must stay between 1 and 5.
+    // The shared check across fields (the form runs the server's rule): wheel travel over shock stroke stays between 1 and 5.
     await form.field('Shock stroke').fill('30');
     await form.save();
     await expect(await form.errorOf('Shock stroke')).toHaveText('Wheel travel over shock stroke should be between 1 and 5.');

@@ -1,5 +1,16 @@
 // Words for the catalogue's closed sets; typed against the shared contract so a new value fails the type-check here.
-import type { LoadStationKind, ProductKind, RidingStyle, SpringEnd, SpringEndType } from '@shared/catalogue';
+import {
+  loadStationKinds,
+  productKinds,
+  ridingStyles,
+  springEnds,
+  springEndTypes,
+  type LoadStationKind,
+  type ProductKind,
+  type RidingStyle,
+  type SpringEnd,
+  type SpringEndType,
+} from '@shared/catalogue/constants';
 
 export const stationLabels: Record<LoadStationKind, string> = {
   rider: 'Rider seat',
@@ -8,7 +19,7 @@ export const stationLabels: Record<LoadStationKind, string> = {
   panniers: 'Panniers',
   'top-case': 'Top case',
 };
-export const stationKinds = Object.keys(stationLabels) as LoadStationKind[];
+export const stationKinds: readonly LoadStationKind[] = loadStationKinds;
 
 export const kindLabels: Record<ProductKind, string> = {
   spring: 'Spring',
@@ -16,10 +27,10 @@ export const kindLabels: Record<ProductKind, string> = {
   tool: 'Tool',
   accessory: 'Accessory',
 };
-export const productKindOptions = (Object.keys(kindLabels) as ProductKind[]).map((value) => ({ value, label: kindLabels[value] }));
+export const productKindOptions = productKinds.map((value) => ({ value, label: kindLabels[value] }));
 
 export const endLabels: Record<SpringEnd, string> = { fork: 'Fork', shock: 'Shock' };
-export const springEndOptions = (Object.keys(endLabels) as SpringEnd[]).map((value) => ({ value, label: endLabels[value] }));
+export const springEndOptions = springEnds.map((value) => ({ value, label: endLabels[value] }));
 
 export const endTypeLabels: Record<SpringEndType, string> = {
   plain: 'Plain',
@@ -27,10 +38,11 @@ export const endTypeLabels: Record<SpringEndType, string> = {
   squared: 'Squared (closed)',
   'squared-ground': 'Squared and ground',
 };
+export const springEndTypeOptions = springEndTypes.map((value) => ({ value, label: endTypeLabels[value] }));
+
+export const ridingStyleLabels: Record<RidingStyle, string> = { road: 'Road', adventure: 'Adventure', 'off-road': 'Off-road' };
+export const ridingStyleOptions = ridingStyles.map((value) => ({ value, label: ridingStyleLabels[value] }));
 
 /** The sag DTO spells off-road as `offRoad`; the riding-style list spells it `off-road`. */
-export const sagStyles: { key: 'road' | 'adventure' | 'offRoad'; style: RidingStyle; label: string }[] = [
-  { key: 'road', style: 'road', label: 'Road' },
-  { key: 'adventure', style: 'adventure', label: 'Adventure' },
-  { key: 'offRoad', style: 'off-road', label: 'Off-road' },
-];
+const sagKeys: Record<RidingStyle, 'road' | 'adventure' | 'offRoad'> = { road: 'road', adventure: 'adventure', 'off-road': 'offRoad' };
+export const sagStyles = ridingStyles.map((style) => ({ key: sagKeys[style], style, label: ridingStyleLabels[style] }));

@@ -97,3 +97,30 @@ export class StaffFitmentImportPage {
     await this.page.getByRole('button', { name: /^Import \d+ rows?$/ }).click();
   }
 }
+
+/** The fitment page's springs-and-adapters section: what fits this bike, staff decisions and adapters. */
+export class StaffFitmentCompatibility {
+  constructor(private readonly page: Page) {}
+
+  section(): Locator {
+    return this.page.getByRole('region', { name: 'Springs and adapters for this bike' });
+  }
+
+  table(end: 'Fork' | 'Shock'): Locator {
+    return this.section().getByRole('table', { name: `${end} springs on this fitment` });
+  }
+
+  row(end: 'Fork' | 'Shock', sku: string): Locator {
+    return this.table(end).getByRole('row').filter({ hasText: sku });
+  }
+
+  /** Opens the fit dialog of one spring, picks a decision and saves it. */
+  async decide(sku: string, choice: 'Follow the rule' | 'Force a fit' | 'Force no fit', note?: string) {
+    await this.section().getByRole('button', { name: `Change the fit of ${sku}` }).click();
+    const dialog = this.page.getByRole('dialog', { name: `Fit on this bike: ${sku}` });
+    await dialog.getByRole('radio', { name: choice }).check();
+    if (note !== undefined) await dialog.getByLabel('Why (kept with the override)').fill(note);
+    await dialog.getByRole('button', { name: 'Save decision' }).click();
+    await expect(dialog).toBeHidden();
+  }
+}

@@ -127,6 +127,74 @@ describe('staff keep the product catalogue', () => {
   });
 });
 
+describe('staff change stock by an amount without losing a sale in between', () => {
+  const stock = (http: Awaited<ReturnType<typeof staffApp>>['http'], auth: Record<string, string>, id: string, body: object) =>
+    http.patch(`/api/staff/products/${id}/stock`).set(auth).send(body);
+
+  it('a delivery adds to the count on hand, keeps the bin unless given, and the audit says by how much and why', async () => {
+    const { http, staff } = await staffApp();
+    const p = (await http.post('/api/staff/products').set(staff.auth).send(springInput({ stockOnHand: 5 }))).body as StaffProductDto;
+    const added = await stock(http, staff.auth, p.id, { change: 3, reason: 'delivery' });
+    expect(added.status).toBe(200);
+    expect(added.body).toMatchObject({ stockOnHand: 8, binLocation: 'A-01' });
+    const taken = await stock(http, staff.auth, p.id, { change: -2, binLocation: 'C-3' });
+    expect(taken.body).toMatchObject({ stockOnHand: 6, binLocation: 'C-3' });
+    const audit = (await http.get('/api/staff/audit').set(staff.auth).query({ entityId: p.id })).body;
+    expect(audit.items[0]).toMatchObject({ before: { stockOnHand: 8, binLocation: 'A-01' }, after: { stockOnHand: 6, binLocation: 'C-3', change: -2 } });
+    expect(audit.items[1]).toMatchObject({ before: { stockOnHand: 5, binLocation: 'A-01' }, after: { stockOnHand: 8, change: 3, reason: 'delivery' } });
+  });
+
+  it('a change that would leave less than none is a 409 that says how many are on hand, and nothing changes', async () => {
+    const { http, staff } = await staffApp();
+    const p = (await http.post('/api/staff/products').set(staff.auth).send(springInput({ stockOnHand: 2 }))).body as StaffProductDto;
+    const res = await stock(http, staff.auth, p.id, { change: -3, reason: 'breakage', binLocation: 'Z-1' });
+    expect(res.status).toBe(409);
+    expect(res.body.code).toBe('conflict');
+    expect(res.body.message).toMatch(/Only 2 on hand/);
+    const after = (await http.get(`/api/staff/products/${p.id}`).set(staff.auth)).body as StaffProductDto;
+    expect(after).toMatchObject({ stockOnHand: 2, binLocation: 'A-01' });
+    const audit = (await http.get('/api/staff/audit').set(staff.auth).query({ entityId: p.id })).body;
+    expect(audit.total).toBe(1);
+    expect((await stock(http, staff.auth, p.id, { change: -2 })).body.stockOnHand).toBe(0);
+  });
+
+  it('twenty parallel takings of one piece from ten on hand: exactly ten succeed and the stock ends at 0', async () => {
+    const { http, staff } = await staffApp();
+    const p = (await http.post('/api/staff/products').set(staff.auth).send(springInput({ stockOnHand: 10 }))).body as StaffProductDto;
+    const replies = await Promise.all(Array.from({ length: 20 }, () => stock(http, staff.auth, p.id, { change: -1, reason: 'sale' })));
+    expect(replies.filter((r) => r.status === 200)).toHaveLength(10);
+    expect(replies.filter((r) => r.status === 409)).toHaveLength(10);
+    expect((await http.get(`/api/staff/products/${p.id}`).set(staff.auth)).body.stockOnHand).toBe(0);
+    const audit = (await http.get('/api/staff/audit').set(staff.auth).query({ entityId: p.id, pageSize: 100 })).body;
+    // One create and one row per successful change, each recording the count it left.
+    expect(audit.total).toBe(11);
+    const left = audit.items.filter((a: { action: string }) => a.action === 'update').map((a: { after: { stockOnHand: number } }) => a.after.stockOnHand);
+    expect([...left].sort((a, b) => a - b)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]);
+  });
+
+  it.each([
+    ['both a count and a change', { stockOnHand: 4, change: 1 }, 'change'],
+    ['neither a count nor a change', { binLocation: 'A-2' }, 'stockOnHand'],
+    ['a change of nothing', { change: 0 }, 'change'],
+    ['a change of half a piece', { change: 1.5 }, 'change'],
+    ['a change as text', { change: '-1' }, 'change'],
+    ['a negative count', { stockOnHand: -1 }, 'stockOnHand'],
+    ['a reason of a thousand characters', { change: 1, reason: 'x'.repeat(1000) }, 'reason'],
+  ])('a stock update with %s is refused on that field', async (_name, body, field) => {
+    const { http, staff } = await staffApp();
+    const p = (await http.post('/api/staff/products').set(staff.auth).send(springInput())).body as StaffProductDto;
+    const res = await stock(http, staff.auth, p.id, body);
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields[field], JSON.stringify(res.body.fields)).toBe('string');
+  });
+
+  it('a change to a product that does not exist is a 404', async () => {
+    const { http, staff } = await staffApp();
+    const res = await stock(http, staff.auth, '00000000-0000-4000-8000-000000000000', { change: 1 });
+    expect(res.status).toBe(404);
+  });
+});
+
 describe('riders browse the catalogue', () => {
   async function catalogue() {
     const t = await staffApp();

@@ -251,19 +251,54 @@ export async function updateProduct(actorId: string, id: string, dto: ProductInp
   return out;
 }
 
-/** A stock take: set the count (and bin) of one product. */
+/** A stock take sets the count; a delivery or a breakage changes it by an amount. Either way one audited transaction. */
 export async function updateStock(actorId: string, id: string, dto: StockUpdateDto): Promise<StaffProductDto> {
   const out = await AppDataSource.transaction(async (em) => {
-    const p = await lockedProduct(em, id);
-    const before = { stockOnHand: p.stockOnHand, binLocation: p.binLocation };
-    p.stockOnHand = dto.stockOnHand;
-    if (dto.binLocation !== undefined) p.binLocation = dto.binLocation.trim();
-    await em.save(p);
-    await recordAudit(em, { actorId, entityType: 'product', entityId: id, action: 'update', before, after: { stockOnHand: p.stockOnHand, binLocation: p.binLocation } });
+    const { before, after } = dto.change !== undefined ? await changeStockBy(em, id, dto.change, dto.binLocation) : await setStockCount(em, id, dto.stockOnHand!, dto.binLocation);
+    const why = dto.reason?.trim() ? { reason: dto.reason.trim() } : {};
+    const change = dto.change !== undefined ? { change: dto.change } : {};
+    await recordAudit(em, { actorId, entityType: 'product', entityId: id, action: 'update', before, after: { ...after, ...change, ...why } });
     return staffDto(id, em);
   });
   catalogueChanged();
   return out;
+}
+
+interface StockSnapshot {
+  stockOnHand: number;
+  binLocation: string;
+}
+
+async function setStockCount(em: EntityManager, id: string, count: number, bin: string | undefined): Promise<{ before: StockSnapshot; after: StockSnapshot }> {
+  const p = await lockedProduct(em, id);
+  const before = { stockOnHand: p.stockOnHand, binLocation: p.binLocation };
+  p.stockOnHand = count;
+  if (bin !== undefined) p.binLocation = bin.trim();
+  await em.save(p);
+  return { before, after: { stockOnHand: p.stockOnHand, binLocation: p.binLocation } };
+}
+
+// One guarded statement: concurrent changes queue on the row and each sees the count the one before left.
+async function changeStockBy(em: EntityManager, id: string, change: number, bin: string | undefined): Promise<{ before: StockSnapshot; after: StockSnapshot }> {
+  const [rows] = (await em.query(
+    `UPDATE products SET stock_on_hand = stock_on_hand + $1, updated_at = now()
+     WHERE id = $2 AND stock_on_hand + $1 >= 0
+     RETURNING stock_on_hand AS "stockOnHand", bin_location AS "binLocation"`,
+    [change, id],
+  )) as [StockSnapshot[], number];
+  const row = rows[0];
+  if (!row) {
+    const p = await products(em).findOneBy({ id });
+    if (!p) throw AppError.notFound('The product');
+    throw new AppError('conflict', `Only ${p.stockOnHand} on hand: taking out ${-change} would leave ${p.stockOnHand + change}, and stock cannot go below 0.`, {
+      change: `Only ${p.stockOnHand} on hand now.`,
+    });
+  }
+  const before = { stockOnHand: row.stockOnHand - change, binLocation: row.binLocation };
+  if (bin === undefined || bin.trim() === row.binLocation) return { before, after: { ...row } };
+  // The row is already locked by the update above, so the bin cannot move under us.
+  await products(em).update({ id }, { binLocation: bin.trim() });
+  return { before, after: { stockOnHand: row.stockOnHand, binLocation: bin.trim() } };
 }
 
 export async function deleteProduct(actorId: string, id: string, storage: ImageStorage): Promise<void> {

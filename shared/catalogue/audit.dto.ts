@@ -1,8 +1,7 @@
 import { IsIn, IsOptional, IsUUID } from 'class-validator';
-import { PageQueryDto } from './common';
+import { auditEntityTypes, PageQueryDto, type AuditEntityType } from './common';
 
-export const auditEntityTypes = ['fitment', 'product', 'compatibility'] as const;
-export type AuditEntityType = (typeof auditEntityTypes)[number];
+export { auditEntityTypes, type AuditEntityType } from './constants';
 
 export interface AuditEntryDto {
   id: string;

@@ -2,6 +2,8 @@ import { Type } from 'class-transformer';
 import { ArrayMaxSize, IsArray, IsBoolean, IsInt, IsOptional, IsString, IsUUID, Max, MaxLength, Min, ValidateNested } from 'class-validator';
 import type { CurrencyCode, SpringEnd } from './common';
 
+export { springFitToleranceMm } from './constants';
+
 /** An adapter a spring needs on a fitment; it goes in the cart with the spring. */
 export interface AdapterNeedDto {
   id: string;
@@ -68,6 +70,3 @@ export class AdapterNeedsDto {
   @Type(() => AdapterNeedInputDto)
   adapters!: AdapterNeedInputDto[];
 }
-
-/** A spring fits a fitment's window when its inner diameter is within this of the fitment's, mm. */
-export const springFitToleranceMm = 0.5;

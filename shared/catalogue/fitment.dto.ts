@@ -16,7 +16,7 @@ import {
   ValidateIf,
   ValidateNested,
 } from 'class-validator';
-import { isIn, loadStationKinds, PageQueryDto, sortValues, type LoadStationKind, type RateInUnitsDto } from './common';
+import { fitmentSortFields, isIn, loadStationKinds, PageQueryDto, sortValues, type LoadStationKind, type RateInUnitsDto } from './common';
 
 // ---------- responses ----------
 
@@ -121,8 +121,6 @@ export interface MakeDto {
 }
 
 // ---------- requests ----------
-
-export const fitmentSortFields = ['make', 'model', 'yearFrom', 'yearTo', 'updatedAt'] as const;
 
 /** GET /api/fitments and GET /api/staff/fitments query. */
 export class FitmentListQueryDto extends PageQueryDto {
@@ -436,56 +434,5 @@ export class FitmentInputDto {
   notes?: string;
 }
 
-/** Derived sprung masses from wet mass, static front share and unsprung masses, kg. */
-export function sprungFromWet(wetMassKg: number, frontSharePct: number, frontUnsprungKg: number, rearUnsprungKg: number) {
-  return {
-    frontSprungMassKg: (wetMassKg * frontSharePct) / 100 - frontUnsprungKg,
-    rearSprungMassKg: (wetMassKg * (100 - frontSharePct)) / 100 - rearUnsprungKg,
-  };
-}
-
-/**
- * Rules across fields that class-validator cannot say per field; returns `{field: message}`, empty when fine.
- * @example fitmentProblems({ ...input, yearTo: input.yearFrom - 1 }) // { yearTo: 'The last year is not before the first.' }
- */
-export function fitmentProblems(f: FitmentInputDto): Record<string, string> {
-  const p: Record<string, string> = {};
-  if (f.yearTo < f.yearFrom) p.yearTo = 'The last year is not before the first.';
-  if (f.rearLeverageRatio != null && f.rearLeverageCurve != null) p.rearLeverageCurve = 'Give a single leverage ratio or a curve, not both.';
-  if (f.rearPreloadMaxMm < f.rearPreloadMinMm) p.rearPreloadMaxMm = 'The maximum is not below the minimum.';
-  if (f.forkPreloadMaxMm < f.forkPreloadMinMm) p.forkPreloadMaxMm = 'The maximum is not below the minimum.';
-  if (f.shockSpringFreeLengthMaxMm < f.shockSpringFreeLengthMinMm) p.shockSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
-  if (f.forkSpringFreeLengthMaxMm < f.forkSpringFreeLengthMinMm) p.forkSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
-  const ratio = f.rearWheelTravelMm / f.shockStrokeMm;
-  if (ratio < 1 || ratio > 5) p.shockStrokeMm = 'Wheel travel over shock stroke should be between 1 and 5.';
-  if (f.rearLeverageCurve) {
-    f.rearLeverageCurve.forEach((pt, i) => {
-      const prev = f.rearLeverageCurve?.[i - 1];
-      if (prev && !(pt.wheelTravelMm > prev.wheelTravelMm)) p[`rearLeverageCurve.${i}.wheelTravelMm`] = 'Points go in increasing wheel travel.';
-    });
-  }
-  const seen = new Set<string>();
-  f.loadStations.forEach((s, i) => {
-    if (seen.has(s.station)) p[`loadStations.${i}.station`] = 'Each station appears once.';
-    seen.add(s.station);
-  });
-  if (!seen.has('rider')) p.loadStations = 'The rider seat is needed.';
-  if (f.massInput === 'wet' && f.wetMassKg != null && f.frontStaticSharePct != null && f.frontUnsprungMassKg != null && f.rearUnsprungMassKg != null) {
-    const s = sprungFromWet(f.wetMassKg, f.frontStaticSharePct, f.frontUnsprungMassKg, f.rearUnsprungMassKg);
-    if (s.frontSprungMassKg < 20) p.frontUnsprungMassKg = 'This leaves less than 20 kg sprung on the front.';
-    if (s.rearSprungMassKg < 20) p.rearUnsprungMassKg = 'This leaves less than 20 kg sprung on the rear.';
-  }
-  for (const end of ['front', 'rear'] as const) {
-    const e = f.sag?.[end];
-    if (!e) continue;
-    const travel = end === 'front' ? f.forkTravelMm : f.rearWheelTravelMm;
-    for (const style of ['road', 'adventure', 'offRoad'] as const) {
-      const pair = e[style];
-      if (!pair) continue;
-      const riderMm = e.unit === 'pct' ? (pair.rider / 100) * travel : pair.rider;
-      if (pair.static >= pair.rider) p[`sag.${end}.${style}.static`] = 'Static sag is less than rider sag.';
-      if (riderMm >= travel * 0.6) p[`sag.${end}.${style}.rider`] = 'Rider sag is less than 60 % of the travel.';
-    }
-  }
-  return p;
-}
+// The cross-field rules live in a decorator-free module the client loads too; re-exported for the server.
+export { fitmentProblems, sprungFromWet, sprungFromWetOrNull, type FitmentRuleFields } from './fitment-rules';

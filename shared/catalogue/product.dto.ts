@@ -14,17 +14,23 @@ import {
   Max,
   MaxLength,
   Min,
+  ValidateBy,
   ValidateIf,
   ValidateNested,
+  type ValidationArguments,
   ArrayMaxSize,
 } from 'class-validator';
 import {
   isIn,
+  maxStockChange,
   PageQueryDto,
   productKinds,
+  productSortFields,
+  skuPattern,
   sortValues,
   springEnds,
   springEndTypes,
+  currency,
   type CurrencyCode,
   type ProductKind,
   type RateInUnitsDto,
@@ -109,8 +115,6 @@ export interface SpringOptionsDto {
 }
 
 // ---------- requests ----------
-
-export const productSortFields = ['name', 'sku', 'price', 'rate', 'stock', 'updatedAt'] as const;
 
 const boolString = (what: string) => IsIn(['true', 'false'], { message: `${what} is true or false.` });
 
@@ -232,7 +236,7 @@ export class SpringDetailsInputDto extends SpringGeometryFieldsDto {
 /** POST /api/staff/products and PUT /api/staff/products/:id body (a full replacement; images are separate). */
 export class ProductInputDto {
   @IsString({ message: 'Enter a SKU.' })
-  @Matches(/^[A-Z0-9][A-Z0-9-]{2,39}$/, { message: 'A SKU has 3 to 40 capital letters, digits and dashes.' })
+  @Matches(skuPattern, { message: 'A SKU has 3 to 40 capital letters, digits and dashes.' })
   sku!: string;
 
   @IsString({ message: 'Enter a name.' })
@@ -253,7 +257,7 @@ export class ProductInputDto {
   priceCents!: number;
 
   @IsOptional()
-  @IsIn(['EUR'], { message: 'Currency is EUR.' })
+  @IsIn([currency], { message: `Currency is ${currency}.` })
   currency?: CurrencyCode;
 
   @IsInt({ message: 'Stock on hand is a whole number.' })
@@ -277,12 +281,54 @@ export class ProductInputDto {
   spring?: SpringDetailsInputDto | null;
 }
 
-/** PATCH /api/staff/products/:id/stock: set the count after a stock take, optionally the bin. */
+/**
+ * PATCH /api/staff/products/:id/stock: exactly one of `stockOnHand` (set the count after a stock take) or
+ * `change` (add a delivery, take out a breakage: applied on the server, so a sale in between is kept).
+ */
 export class StockUpdateDto {
-  @IsInt({ message: 'Stock on hand is a whole number.' })
-  @Min(0, { message: 'Stock on hand is not negative.' })
-  @Max(100_000, { message: 'Stock on hand is at most 100000.' })
-  stockOnHand!: number;
+  @ValidateIf((o: StockUpdateDto) => o.change === undefined)
+  @ValidateBy(
+    { name: 'stockOnHand', validator: { validate: (v: unknown) => Number.isInteger(v) && (v as number) >= 0 && (v as number) <= 100_000 } },
+    {
+      message: (args: ValidationArguments) =>
+        args.value === undefined
+          ? 'Give the count on the shelf, or a change by an amount.'
+          : !Number.isInteger(args.value)
+            ? 'Stock on hand is a whole number.'
+            : (args.value as number) < 0
+              ? 'Stock on hand is not negative.'
+              : 'Stock on hand is at most 100000.',
+    },
+  )
+  stockOnHand?: number;
+
+  @ValidateIf((o: StockUpdateDto) => o.change !== undefined)
+  @ValidateBy(
+    {
+      name: 'stockChange',
+      validator: {
+        validate: (v: unknown, args?: ValidationArguments) =>
+          (args?.object as StockUpdateDto | undefined)?.stockOnHand === undefined && Number.isInteger(v) && v !== 0 && Math.abs(v as number) <= maxStockChange,
+      },
+    },
+    {
+      message: (args: ValidationArguments) =>
+        (args.object as StockUpdateDto).stockOnHand !== undefined
+          ? 'Give either a change or the count on the shelf, not both.'
+          : !Number.isInteger(args.value)
+            ? 'The change is a whole number of pieces.'
+            : args.value === 0
+              ? 'A change of 0 changes nothing.'
+              : `A change is at most ${maxStockChange} pieces either way.`,
+    },
+  )
+  change?: number;
+
+  /** Why the stock moved (delivery, breakage, count); kept in the audit log. */
+  @IsOptional()
+  @IsString({ message: 'The reason is text.' })
+  @MaxLength(200, { message: 'A reason has at most 200 characters.' })
+  reason?: string;
 
   @IsOptional()
   @IsString({ message: 'Bin location is text.' })

@@ -13,7 +13,7 @@ import {
   ValidateNested,
 } from 'class-validator';
 import type { AdapterNeedDto } from './compatibility.dto';
-import { isIn, loadStationKinds, ridingStyles, type CurrencyCode, type LoadStationKind, type RateInUnitsDto, type RidingStyle } from './common';
+import { isIn, luggageStations, ridingStyles, type CurrencyCode, type LoadStationKind, type LuggageStation, type RateInUnitsDto, type RidingStyle } from './common';
 import type { FitmentSummaryDto } from './fitment.dto';
 import type { SpringCandidateResult, SpringVerdict } from '../engine/types';
 
@@ -34,8 +34,8 @@ export class RiderInputDto {
 }
 
 export class LuggageInputDto {
-  @isIn(loadStationKinds.filter((s) => s !== 'rider' && s !== 'passenger'), 'Luggage station')
-  station!: Exclude<LoadStationKind, 'rider' | 'passenger'>;
+  @isIn(luggageStations, 'Luggage station')
+  station!: LuggageStation;
 
   @num('Luggage mass')
   @Min(0, { message: 'Luggage mass is not negative.' })

@@ -1,7 +1,7 @@
 import type { FitmentDto, FitmentSummaryDto, MakeDto } from '@shared/catalogue/fitment.dto';
 import type { Page } from '@shared/catalogue/common';
 import type { RecommendationDto } from '@shared/catalogue/recommendation.dto';
-import type { RidingStyle } from '@shared/catalogue/common';
+import type { LuggageStation, RidingStyle } from '@shared/catalogue/constants';
 import { api } from './client';
 
 export interface RecommendationRequest {
@@ -10,7 +10,7 @@ export interface RecommendationRequest {
   // null is sent as it is, so the server names the empty field in its answer.
   rider: { massKg: number | null; gearKg: number };
   passengerKg?: number;
-  luggage: { station: 'tank-bag' | 'panniers' | 'top-case'; massKg: number }[];
+  luggage: { station: LuggageStation; massKg: number }[];
 }
 
 /** What a rider's pages ask of the public catalogue. */

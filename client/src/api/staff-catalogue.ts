@@ -1,8 +1,11 @@
-// Types only from the shared contract: its modules carry class-validator decorators that must stay out of the bundle.
+// Types only from the DTO modules (their class-validator decorators must stay out of the bundle); values come from @shared/catalogue/constants.
 import type {
+  AdapterNeedsDto,
   AuditEntityType,
+  CompatibilityOverrideDto,
   AuditEntryDto,
   CsvImportReportDto,
+  FitmentCompatibilityDto,
   FitmentDto,
   FitmentInputDto,
   FitmentSummaryDto,
@@ -11,6 +14,7 @@ import type {
   ProductInputDto,
   ProductKind,
   SpringEnd,
+  SpringFitDto,
   SpringOptionsDto,
   StaffProductDto,
   StockUpdateDto,
@@ -51,6 +55,9 @@ async function postCsv(path: string, csv: string): Promise<CsvImportReportDto> {
   throw new ApiError(res.status, data?.code ?? 'http', data?.message ?? `The server answered ${res.status}.`, data?.fields ?? {});
 }
 
+const springOnFitment = (fitmentId: string, productId: string, what: 'override' | 'adapters') =>
+  `/staff/fitments/${encodeURIComponent(fitmentId)}/springs/${encodeURIComponent(productId)}/${what}`;
+
 export const staffCatalogue = {
   listFitments: (q: TableQuery) => api.get<Page<FitmentSummaryDto>>(withTableQuery('/staff/fitments', q)),
   getFitment: (id: string) => api.get<FitmentDto>(`/staff/fitments/${encodeURIComponent(id)}`),
@@ -77,6 +84,11 @@ export const staffCatalogue = {
   deleteImage: (id: string, imageId: string) =>
     api.delete<StaffProductDto>(`/staff/products/${encodeURIComponent(id)}/images/${encodeURIComponent(imageId)}`),
   springOptions: () => api.get<SpringOptionsDto>('/staff/spring-options'),
+
+  compatibility: (fitmentId: string) => api.get<FitmentCompatibilityDto>(`/staff/fitments/${encodeURIComponent(fitmentId)}/compatibility`),
+  setFitOverride: (fitmentId: string, productId: string, body: CompatibilityOverrideDto) => api.put<SpringFitDto>(springOnFitment(fitmentId, productId, 'override'), body),
+  clearFitOverride: (fitmentId: string, productId: string) => api.delete<SpringFitDto>(springOnFitment(fitmentId, productId, 'override')),
+  setAdapters: (fitmentId: string, productId: string, body: AdapterNeedsDto) => api.put<SpringFitDto>(springOnFitment(fitmentId, productId, 'adapters'), body),
 
   listAudit: (q: TableQuery, filters: { entityType?: AuditEntityType; entityId?: string } = {}) =>
     api.get<Page<AuditEntryDto>>(withTableQuery('/staff/audit', q, filters)),

@@ -1,5 +1,5 @@
 import type { FitmentDto, LoadStationKind, SagEndDto } from '@shared/catalogue';
-import { sprungFromWetMass } from '../fitment-math';
+import { fitmentProblems, type FitmentRuleFields } from '@shared/catalogue/fitment-rules';
 import { stationKinds } from '../catalogue-labels';
 import type { FitmentInput } from '../api/staff-catalogue';
 
@@ -198,6 +198,16 @@ export function fitmentInputFromDraft(d: FitmentDraft): FitmentInput {
 
 const sagPair = (p: SagPairDraft) => ({ static: p.static as number, rider: p.rider as number });
 
+/** The draft as the shared cross-field rules read it; blanks stay null, so a rule that needs them waits. */
+function ruleFieldsFromDraft(d: FitmentDraft): FitmentRuleFields {
+  return {
+    ...d,
+    loadStations: presentStations(d).map((station) => ({ station })),
+    rearLeverageRatio: d.leverageMode === 'ratio' ? d.rearLeverageRatio : null,
+    rearLeverageCurve: d.leverageMode === 'curve' ? d.rearLeverageCurve : null,
+  };
+}
+
 /** One number against its spec, in the server's words; '' when fine. */
 export function checkQuantity(value: N, spec: QuantitySpec): string {
   if (value === null) return spec.optional ? '' : `Enter the ${spec.label.toLowerCase()}.`;
@@ -222,14 +232,6 @@ export function checkFitmentDraft(d: FitmentDraft): Record<string, string> {
   for (const [key, spec] of Object.entries(quantities) as [QuantityKey, QuantitySpec][]) {
     if (!skip.has(key)) put(key, checkQuantity(d[key], spec));
   }
-  const both = (a: N, b: N) => a !== null && b !== null && Number.isFinite(a) && Number.isFinite(b);
-  if (both(d.yearFrom, d.yearTo) && (d.yearTo as number) < (d.yearFrom as number)) put('yearTo', 'The last year is not before the first.');
-  if (both(d.rearPreloadMinMm, d.rearPreloadMaxMm) && (d.rearPreloadMaxMm as number) < (d.rearPreloadMinMm as number)) put('rearPreloadMaxMm', 'The maximum is not below the minimum.');
-  if (both(d.forkPreloadMinMm, d.forkPreloadMaxMm) && (d.forkPreloadMaxMm as number) < (d.forkPreloadMinMm as number)) put('forkPreloadMaxMm', 'The maximum is not below the minimum.');
-  if (both(d.shockSpringFreeLengthMinMm, d.shockSpringFreeLengthMaxMm) && (d.shockSpringFreeLengthMaxMm as number) < (d.shockSpringFreeLengthMinMm as number)) put('shockSpringFreeLengthMaxMm', 'The longest is not below the shortest.');
-  if (both(d.forkSpringFreeLengthMinMm, d.forkSpringFreeLengthMaxMm) && (d.forkSpringFreeLengthMaxMm as number) < (d.forkSpringFreeLengthMinMm as number)) put('forkSpringFreeLengthMaxMm', 'The longest is not below the shortest.');
-
-  if (!d.stations.rider.present) put('loadStations', 'The rider seat is needed.');
   presentStations(d).forEach((kind, i) => {
     put(`loadStations.${i}.positionMm`, checkQuantity(d.stations[kind].positionMm, { label: 'Position', unit: 'mm', min: 0, max: 2500 }));
     put(`loadStations.${i}.maxLoadKg`, checkQuantity(d.stations[kind].maxLoadKg, { label: 'Maximum load', unit: 'kg', min: 1, max: 250 }));
@@ -239,10 +241,6 @@ export function checkFitmentDraft(d: FitmentDraft): Record<string, string> {
     d.rearLeverageCurve.forEach((pt, i) => {
       put(`rearLeverageCurve.${i}.wheelTravelMm`, checkQuantity(pt.wheelTravelMm, { label: 'Wheel travel', unit: 'mm', min: 0, max: 400 }));
       put(`rearLeverageCurve.${i}.ratio`, checkQuantity(pt.ratio, { label: 'Ratio', unit: '', min: 1, max: 5 }));
-      const prev = d.rearLeverageCurve[i - 1];
-      if (prev && both(prev.wheelTravelMm, pt.wheelTravelMm) && !((pt.wheelTravelMm as number) > (prev.wheelTravelMm as number))) {
-        put(`rearLeverageCurve.${i}.wheelTravelMm`, 'Points go in increasing wheel travel.');
-      }
     });
   }
   for (const end of ['front', 'rear'] as const) {
@@ -250,17 +248,13 @@ export function checkFitmentDraft(d: FitmentDraft): Record<string, string> {
       const sp = d.sag[end][style];
       put(`sag.${end}.${style}.static`, checkQuantity(sp.static, { label: 'Static sag', unit: d.sag[end].unit === 'pct' ? '%' : 'mm', min: 0, max: 200 }));
       put(`sag.${end}.${style}.rider`, checkQuantity(sp.rider, { label: 'Rider sag', unit: d.sag[end].unit === 'pct' ? '%' : 'mm', min: 1, max: 200 }));
-      if (both(sp.static, sp.rider) && (sp.static as number) >= (sp.rider as number)) put(`sag.${end}.${style}.static`, 'Static sag is less than rider sag.');
     }
   }
   d.torques.forEach((t, i) => {
     if (!t.fastener.trim()) put(`torques.${i}.fastener`, 'Name the fastener.');
     put(`torques.${i}.torqueNm`, checkQuantity(t.torqueNm, { label: 'Torque', unit: 'N·m', min: 0.5, max: 500 }));
   });
-  if (d.massInput === 'wet') {
-    const s = sprungFromWetMass(d);
-    if (s && s.frontSprungMassKg < 20) put('frontUnsprungMassKg', 'This leaves less than 20 kg sprung on the front.');
-    if (s && s.rearSprungMassKg < 20) put('rearUnsprungMassKg', 'This leaves less than 20 kg sprung on the rear.');
-  }
+  // The server's own rules across fields, after the per-field ones so a field shows its first problem.
+  for (const [key, message] of Object.entries(fitmentProblems(ruleFieldsFromDraft(d)))) put(key, message);
   return p;
 }

@@ -1,4 +1,5 @@
-import type { ProductKind, SpringEnd, SpringEndType, StaffProductDto } from '@shared/catalogue';
+import type { StaffProductDto } from '@shared/catalogue';
+import { currency, skuPattern, type ProductKind, type SpringEnd, type SpringEndType } from '@shared/catalogue/constants';
 import type { ProductInput } from '../api/staff-catalogue';
 import { eurosToCents } from '../format';
 import { checkQuantity } from './useFitmentForm';
@@ -93,7 +94,7 @@ export function productInputFromDraft(d: ProductDraft): ProductInput {
     kind: d.kind,
     description: d.description,
     priceCents: eurosToCents(d.priceEuros as number),
-    currency: 'EUR',
+    currency,
     stockOnHand: d.stockOnHand as number,
     binLocation: d.binLocation.trim(),
     active: d.active,
@@ -132,7 +133,7 @@ export function checkProductDraft(d: ProductDraft): Record<string, string> {
   const put = (k: string, m: string) => {
     if (m && !p[k]) p[k] = m;
   };
-  if (!/^[A-Z0-9][A-Z0-9-]{2,39}$/.test(d.sku.trim())) put('sku', 'A SKU has 3 to 40 capital letters, digits and dashes.');
+  if (!skuPattern.test(d.sku.trim())) put('sku', 'A SKU has 3 to 40 capital letters, digits and dashes.');
   if (!d.name.trim()) put('name', 'Enter a name.');
   put('priceCents', checkQuantity(d.priceEuros, { label: 'Price', unit: '€', min: 0, max: 100_000 }));
   put('stockOnHand', checkQuantity(d.stockOnHand, { label: 'Stock on hand', unit: 'pieces', min: 0, max: 100_000, integer: true }));

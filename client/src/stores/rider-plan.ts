@@ -1,11 +1,11 @@
 import { defineStore } from 'pinia';
 import { computed, ref, watch } from 'vue';
-import type { RidingStyle } from '@shared/catalogue/common';
+import { luggageStations, type LuggageStation, type RidingStyle } from '@shared/catalogue/constants';
 import type { FitmentDto } from '@shared/catalogue/fitment.dto';
 import type { RecommendationDto } from '@shared/catalogue/recommendation.dto';
 import { shopApi, type RecommendationRequest } from '../api/shop';
 
-export type LuggageStation = 'tank-bag' | 'panniers' | 'top-case';
+export type { LuggageStation };
 const key = 'loadline.plan';
 
 interface SavedPlan {
@@ -66,7 +66,6 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
     plan.value.chosenShockId = pick(r.shock, plan.value.chosenShockId);
   }
 
-  const luggageStations = ['tank-bag', 'panniers', 'top-case'] as const;
   /** The luggage as sent: only stations this bike has and that carry something, in a fixed order. */
   const sentLuggage = computed(() =>
     luggageStations.flatMap((station) => {

@@ -1,0 +1,84 @@
+import { describe, expect, it } from 'vitest';
+import { fitmentProblems, sprungFromWet, sprungFromWetOrNull, type FitmentRuleFields } from './fitment-rules';
+
+const complete = (over: Partial<FitmentRuleFields> = {}): FitmentRuleFields => ({
+  yearFrom: 2019,
+  yearTo: 2023,
+  massInput: 'sprung',
+  loadStations: [{ station: 'rider' }, { station: 'passenger' }],
+  rearLeverageRatio: 2.6,
+  rearLeverageCurve: null,
+  rearWheelTravelMm: 200,
+  shockStrokeMm: 77,
+  rearPreloadMinMm: 2,
+  rearPreloadMaxMm: 22,
+  forkPreloadMinMm: 0,
+  forkPreloadMaxMm: 20,
+  shockSpringFreeLengthMinMm: 180,
+  shockSpringFreeLengthMaxMm: 200,
+  forkSpringFreeLengthMinMm: 440,
+  forkSpringFreeLengthMaxMm: 480,
+  forkTravelMm: 210,
+  sag: {
+    front: { unit: 'mm', road: { static: 30, rider: 50 } },
+    rear: { unit: 'pct', road: { static: 10, rider: 30 } },
+  },
+  ...over,
+});
+
+describe('fitment rules across fields', () => {
+  it('a consistent fitment has no problems', () => {
+    expect(fitmentProblems(complete())).toEqual({});
+  });
+
+  it('years, preload and free-length windows out of order are each named on their upper field', () => {
+    expect(fitmentProblems(complete({ yearTo: 2018, rearPreloadMaxMm: 1, forkSpringFreeLengthMaxMm: 400 }))).toEqual({
+      yearTo: 'The last year is not before the first.',
+      rearPreloadMaxMm: 'The maximum is not below the minimum.',
+      forkSpringFreeLengthMaxMm: 'The longest is not below the shortest.',
+    });
+  });
+
+  it('a blank number skips only the rules that need it, so a half-filled form is not told off for what it has not typed', () => {
+    const p = fitmentProblems(complete({ yearFrom: null, shockStrokeMm: null, forkPreloadMaxMm: null, rearPreloadMaxMm: 1 }));
+    expect(p).toEqual({ rearPreloadMaxMm: 'The maximum is not below the minimum.' });
+  });
+
+  it('a rider sag in percent counts against that end’s travel: 60 % of the rear travel is too deep', () => {
+    const p = fitmentProblems(complete({ sag: { rear: { unit: 'pct', road: { static: 20, rider: 60 } } } }));
+    expect(p['sag.rear.road.rider']).toBe('Rider sag is less than 60 % of the travel.');
+  });
+
+  it('wheel travel over a too-short stroke is named on the stroke', () => {
+    expect(fitmentProblems(complete({ shockStrokeMm: 30 })).shockStrokeMm).toBe('Wheel travel over shock stroke should be between 1 and 5.');
+  });
+
+  it('a leverage curve must rise in wheel travel, and blank points wait', () => {
+    const curve = [{ wheelTravelMm: 0 }, { wheelTravelMm: 60 }, { wheelTravelMm: 60 }, { wheelTravelMm: null }];
+    expect(fitmentProblems(complete({ rearLeverageRatio: null, rearLeverageCurve: curve }))).toEqual({ 'rearLeverageCurve.2.wheelTravelMm': 'Points go in increasing wheel travel.' });
+  });
+
+  it('a bike without a rider seat, or with a station twice, is refused', () => {
+    expect(fitmentProblems(complete({ loadStations: [{ station: 'passenger' }, { station: 'passenger' }] }))).toEqual({
+      'loadStations.1.station': 'Each station appears once.',
+      loadStations: 'The rider seat is needed.',
+    });
+  });
+
+  it('wet mass that leaves under 20 kg sprung at an end names that end’s unsprung mass', () => {
+    const wet = complete({ massInput: 'wet', wetMassKg: 100, frontStaticSharePct: 30, frontUnsprungMassKg: 15, rearUnsprungMassKg: 20 });
+    // 100 kg × 30 % − 15 kg = 15 kg front; 100 × 70 % − 20 = 50 kg rear.
+    expect(fitmentProblems(wet)).toEqual({ frontUnsprungMassKg: 'This leaves less than 20 kg sprung on the front.' });
+  });
+});
+
+describe('sprung mass from wet mass', () => {
+  it('splits the wet mass by the static front share and takes off each end’s unsprung mass', () => {
+    expect(sprungFromWet(200, 50, 15, 20)).toEqual({ frontSprungMassKg: 85, rearSprungMassKg: 80 });
+  });
+
+  it('waits for all four numbers on a form', () => {
+    expect(sprungFromWetOrNull({ wetMassKg: 200, frontStaticSharePct: null, frontUnsprungMassKg: 15, rearUnsprungMassKg: 20 })).toBeNull();
+    expect(sprungFromWetOrNull({ wetMassKg: 200, frontStaticSharePct: 50, frontUnsprungMassKg: 15, rearUnsprungMassKg: 20 })).toEqual({ frontSprungMassKg: 85, rearSprungMassKg: 80 });
+  });
+});

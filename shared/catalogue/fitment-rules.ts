@@ -1,0 +1,114 @@
+// Fitment rules across fields, free of class-validator so the staff form runs the server's own checks as staff type.
+
+type N = number | null | undefined;
+
+interface SagPairRule {
+  static: N;
+  rider: N;
+}
+interface SagEndRule {
+  unit: 'mm' | 'pct';
+  road?: SagPairRule;
+  adventure?: SagPairRule;
+  offRoad?: SagPairRule;
+}
+
+/**
+ * What the cross-field rules read: a validated `FitmentInputDto`, or the client's half-filled form, where a
+ * blank number skips only the rules that need it.
+ */
+export interface FitmentRuleFields {
+  yearFrom: N;
+  yearTo: N;
+  massInput: 'sprung' | 'wet';
+  wetMassKg?: N;
+  frontStaticSharePct?: N;
+  frontUnsprungMassKg?: N;
+  rearUnsprungMassKg?: N;
+  loadStations: readonly { station: string }[];
+  rearLeverageRatio?: N;
+  rearLeverageCurve?: readonly { wheelTravelMm: N }[] | null;
+  rearWheelTravelMm: N;
+  shockStrokeMm: N;
+  rearPreloadMinMm: N;
+  rearPreloadMaxMm: N;
+  forkPreloadMinMm: N;
+  forkPreloadMaxMm: N;
+  shockSpringFreeLengthMinMm: N;
+  shockSpringFreeLengthMaxMm: N;
+  forkSpringFreeLengthMinMm: N;
+  forkSpringFreeLengthMaxMm: N;
+  forkTravelMm: N;
+  sag?: { front?: SagEndRule; rear?: SagEndRule };
+}
+
+const isNum = (v: N): v is number => typeof v === 'number' && Number.isFinite(v);
+
+/**
+ * Derived sprung masses from wet mass, static front share and unsprung masses, kg.
+ * @example sprungFromWet(200, 50, 15, 20) // { frontSprungMassKg: 85, rearSprungMassKg: 80 }
+ */
+export function sprungFromWet(wetMassKg: number, frontSharePct: number, frontUnsprungKg: number, rearUnsprungKg: number) {
+  return {
+    frontSprungMassKg: (wetMassKg * frontSharePct) / 100 - frontUnsprungKg,
+    rearSprungMassKg: (wetMassKg * (100 - frontSharePct)) / 100 - rearUnsprungKg,
+  };
+}
+
+/**
+ * `sprungFromWet` for a form that may still be blank: null until all four are numbers.
+ * @example sprungFromWetOrNull({ wetMassKg: 200, frontStaticSharePct: null, frontUnsprungMassKg: 15, rearUnsprungMassKg: 20 }) // null
+ */
+export function sprungFromWetOrNull(f: { wetMassKg?: N; frontStaticSharePct?: N; frontUnsprungMassKg?: N; rearUnsprungMassKg?: N }) {
+  const { wetMassKg: w, frontStaticSharePct: s, frontUnsprungMassKg: fu, rearUnsprungMassKg: ru } = f;
+  return isNum(w) && isNum(s) && isNum(fu) && isNum(ru) ? sprungFromWet(w, s, fu, ru) : null;
+}
+
+/**
+ * Rules across fields that class-validator cannot say per field; returns `{field: message}`, empty when fine.
+ * @example fitmentProblems({ ...input, yearTo: input.yearFrom - 1 }) // { yearTo: 'The last year is not before the first.' }
+ */
+export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
+  const p: Record<string, string> = {};
+  const below = (a: N, b: N) => isNum(a) && isNum(b) && a < b;
+  if (below(f.yearTo, f.yearFrom)) p.yearTo = 'The last year is not before the first.';
+  if (f.rearLeverageRatio != null && f.rearLeverageCurve != null) p.rearLeverageCurve = 'Give a single leverage ratio or a curve, not both.';
+  if (below(f.rearPreloadMaxMm, f.rearPreloadMinMm)) p.rearPreloadMaxMm = 'The maximum is not below the minimum.';
+  if (below(f.forkPreloadMaxMm, f.forkPreloadMinMm)) p.forkPreloadMaxMm = 'The maximum is not below the minimum.';
+  if (below(f.shockSpringFreeLengthMaxMm, f.shockSpringFreeLengthMinMm)) p.shockSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
+  if (below(f.forkSpringFreeLengthMaxMm, f.forkSpringFreeLengthMinMm)) p.forkSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
+  if (isNum(f.rearWheelTravelMm) && isNum(f.shockStrokeMm)) {
+    const ratio = f.rearWheelTravelMm / f.shockStrokeMm;
+    if (ratio < 1 || ratio > 5) p.shockStrokeMm = 'Wheel travel over shock stroke should be between 1 and 5.';
+  }
+  f.rearLeverageCurve?.forEach((pt, i) => {
+    const prev = f.rearLeverageCurve?.[i - 1];
+    if (prev && isNum(prev.wheelTravelMm) && isNum(pt.wheelTravelMm) && !(pt.wheelTravelMm > prev.wheelTravelMm)) {
+      p[`rearLeverageCurve.${i}.wheelTravelMm`] = 'Points go in increasing wheel travel.';
+    }
+  });
+  const seen = new Set<string>();
+  f.loadStations.forEach((s, i) => {
+    if (seen.has(s.station)) p[`loadStations.${i}.station`] = 'Each station appears once.';
+    seen.add(s.station);
+  });
+  if (!seen.has('rider')) p.loadStations = 'The rider seat is needed.';
+  const sprung = f.massInput === 'wet' ? sprungFromWetOrNull(f) : null;
+  if (sprung && sprung.frontSprungMassKg < 20) p.frontUnsprungMassKg = 'This leaves less than 20 kg sprung on the front.';
+  if (sprung && sprung.rearSprungMassKg < 20) p.rearUnsprungMassKg = 'This leaves less than 20 kg sprung on the rear.';
+  for (const end of ['front', 'rear'] as const) {
+    const e = f.sag?.[end];
+    if (!e) continue;
+    const travel = end === 'front' ? f.forkTravelMm : f.rearWheelTravelMm;
+    for (const style of ['road', 'adventure', 'offRoad'] as const) {
+      const pair = e[style];
+      if (!pair) continue;
+      if (isNum(pair.static) && isNum(pair.rider) && pair.static >= pair.rider) p[`sag.${end}.${style}.static`] = 'Static sag is less than rider sag.';
+      if (isNum(pair.rider) && isNum(travel)) {
+        const riderMm = e.unit === 'pct' ? (pair.rider / 100) * travel : pair.rider;
+        if (riderMm >= travel * 0.6) p[`sag.${end}.${style}.rider`] = 'Rider sag is less than 60 % of the travel.';
+      }
+    }
+  }
+  return p;
+}
