@@ -30,11 +30,16 @@ function valid<T extends object>(cls: new () => T, plain: unknown, what: string,
  * (see seeds/tools/design-catalogue.ts, which chose the spring ladders with the engine).
  */
 export async function seedDemo(em: EntityManager): Promise<void> {
+  await seedAccounts(em);
+  await seedCatalogue(em);
+}
+
+/** The four demo sign-ins, one per role. */
+export async function seedAccounts(em: EntityManager): Promise<void> {
   const hash = await bcrypt.hash(accounts.password, 10);
   for (const a of accounts.accounts) {
     await em.getRepository(User).save({ email: a.email, displayName: a.displayName, role: a.role as Role, passwordHash: hash });
   }
-  await seedCatalogue(em);
 }
 
 export async function seedCatalogue(em: EntityManager): Promise<void> {

@@ -1,18 +1,26 @@
 import { AppDataSource } from '../server/db/data-source';
 import { User } from '../server/accounts/User.entity';
-import { seedDemo } from './demo';
+import { Fitment } from '../server/fitment/Fitment.entity';
+import { Product } from '../server/catalogue/Product.entity';
+import { seedAccounts, seedCatalogue } from './demo';
 
-// --if-empty seeds only a fresh database, so npm start never overwrites what someone changed in the demo.
+// --if-empty seeds only the parts that are empty, so npm start never overwrites what someone changed in the demo,
+// yet a demo database from before the catalogue existed still gets one.
 const ifEmpty = process.argv.includes('--if-empty');
 const ds = await AppDataSource.initialize();
 try {
-  const count = await ds.getRepository(User).count();
-  if (ifEmpty && count > 0) {
-    console.log('loadline: demo data already present, not seeding');
-  } else {
-    await ds.transaction((em) => seedDemo(em));
-    console.log('loadline: demo data seeded');
-  }
+  await ds.transaction(async (em) => {
+    const seeded: string[] = [];
+    if (!ifEmpty || (await em.getRepository(User).count()) === 0) {
+      await seedAccounts(em);
+      seeded.push('accounts');
+    }
+    if (!ifEmpty || ((await em.getRepository(Fitment).count()) === 0 && (await em.getRepository(Product).count()) === 0)) {
+      await seedCatalogue(em);
+      seeded.push('catalogue');
+    }
+    console.log(seeded.length ? `loadline: demo ${seeded.join(' and ')} seeded` : 'loadline: demo data already present, not seeding');
+  });
 } finally {
   await ds.destroy();
 }
