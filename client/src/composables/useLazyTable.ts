@@ -111,6 +111,8 @@ export function useLazyTable<T>(load: (query: TableQuery) => Promise<TablePage<T
   return { items, total, loading, error, first, rows, sortField, sortOrder, filters, search, reload, onPage, onSort, onFilter, searchSoon, query };
 }
 
+export type LazyTable<T> = ReturnType<typeof useLazyTable<T>>;
+
 /** Appends a table query to a path as the list routes expect it (`?page=&pageSize=&sort=[-]field&<field>=`). */
 export function withTableQuery(path: string, q: TableQuery, extra: Record<string, string | null | undefined> = {}): string {
   const params = new URLSearchParams();
