@@ -43,12 +43,8 @@ export class LuggageInputDto {
   massKg!: number;
 }
 
-/** One named load set, e.g. "two-up touring". */
-export class LoadCaseInputDto {
-  @IsString({ message: 'Name the case.' })
-  @Length(1, 60, { message: 'A case name has 1 to 60 characters.' })
-  name!: string;
-
+/** Who rides and what the bike carries: the part a request and each of its load cases share. */
+export class LoadSetInputDto {
   @ValidateNested()
   @Type(() => RiderInputDto)
   rider!: RiderInputDto;
@@ -67,33 +63,23 @@ export class LoadCaseInputDto {
   luggage?: LuggageInputDto[];
 }
 
+/** One named load set, e.g. "two-up touring". */
+export class LoadCaseInputDto extends LoadSetInputDto {
+  @IsString({ message: 'Name the case.' })
+  @Length(1, 60, { message: 'A case name has 1 to 60 characters.' })
+  name!: string;
+}
+
 /**
  * POST /api/recommendations body. With `cases`, the top-level load is evaluated as a case named
  * "as entered" followed by the given cases, and `fork`/`shock` come in the cases shape.
  */
-export class RecommendationRequestDto {
+export class RecommendationRequestDto extends LoadSetInputDto {
   @IsUUID('all', { message: 'Choose a bike.' })
   fitmentId!: string;
 
   @isIn(ridingStyles, 'Riding style')
   ridingStyle!: RidingStyle;
-
-  @ValidateNested()
-  @Type(() => RiderInputDto)
-  rider!: RiderInputDto;
-
-  @IsOptional()
-  @num('Passenger mass')
-  @Min(0, { message: 'Passenger mass is not negative.' })
-  @Max(250, { message: 'Passenger mass is at most 250 kg.' })
-  passengerKg?: number;
-
-  @IsOptional()
-  @IsArray({ message: 'Luggage is a list.' })
-  @ArrayMaxSize(10, { message: 'At most 10 pieces of luggage.' })
-  @ValidateNested({ each: true })
-  @Type(() => LuggageInputDto)
-  luggage?: LuggageInputDto[];
 
   @IsOptional()
   @IsArray({ message: 'Cases are a list.' })
