@@ -21,3 +21,21 @@ describe('health', () => {
     expect(res.body.code).toBe('not-found');
   });
 });
+
+describe('health while the database is away', () => {
+  it('says degraded with 503 while its connection pool is closed, and ok again once it reopens, from the same app', async () => {
+    const { http } = testApp();
+    const { AppDataSource } = await import('../db/data-source');
+    await AppDataSource.destroy();
+    try {
+      const down = await http.get('/api/health');
+      expect(down.status).toBe(503);
+      expect(down.body).toEqual({ status: 'degraded', db: 'down' });
+    } finally {
+      await AppDataSource.initialize();
+    }
+    const up = await http.get('/api/health');
+    expect(up.status).toBe(200);
+    expect(up.body).toEqual({ status: 'ok', db: 'ok' });
+  });
+});
