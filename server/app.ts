@@ -59,23 +59,27 @@ export function createApp(config: Config = getConfig()): Express {
       }),
     );
   }
+  // Stateless public routes need no session: mounted before the cookie, origin and sign-in checks, so a
+  // signed-in rider's live calculations never wait on a user lookup.
+  const json = express.json({ limit: config.bodyLimitBytes });
+  app.use('/api/calculations', json, calculationRoutes(config));
+  app.use('/api/recommendations', json, recommendationRoutes(config));
+
   app.use(cookieParser());
 
   const api = express.Router();
-  api.use(express.json({ limit: config.bodyLimitBytes }));
+  api.use(json);
   api.use(originCheck(config));
   api.use(authenticate(config));
   api.use('/health', healthRoutes());
   api.use('/auth', authRoutes(config));
   api.use('/admin/users', adminUserRoutes());
-  api.use('/calculations', calculationRoutes(config));
   api.use('/fitments', publicFitmentRoutes());
   api.use('/staff/fitments', staffFitmentRoutes(config.csvImportMaxBytes));
   api.use('/staff/audit', auditRoutes());
   api.use('/products', publicProductRoutes());
   api.use('/staff/products', staffProductRoutes(config));
   api.use('/staff', staffCatalogueRoutes());
-  api.use('/recommendations', recommendationRoutes(config));
   api.use(notFoundApi);
   app.use('/api', api);
   // Before the SPA fallback, so a missing image is a 404 and not the app's index page.

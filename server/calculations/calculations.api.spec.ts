@@ -179,3 +179,21 @@ describe('rate limit', () => {
     expect(third.body.code).toBe('rate-limited');
   });
 });
+
+describe('no session on the stateless routes', () => {
+  it('answers a calculation whatever token, cookie or origin comes with it, and a wrong path is still a JSON 404', async () => {
+    const { http } = testApp();
+    const res = await http
+      .post('/api/calculations/rear-spring')
+      .set('Authorization', 'Bearer not-a-token')
+      .set('Cookie', 'loadline_session=stale')
+      .set('Origin', 'https://elsewhere.example')
+      .send(rearBody());
+    // Nothing here reads or changes an account, so a sign-in or a cross-site origin is irrelevant to it.
+    expect(res.status).toBe(200);
+    expect(res.body.candidates).toHaveLength(3);
+    const missing = await http.post('/api/calculations/unknown').send({});
+    expect(missing.status).toBe(404);
+    expect(missing.body.code).toBe('not-found');
+  });
+});
