@@ -21,6 +21,9 @@ import { originCheck } from './http/origin-check';
 export function createApp(config: Config = getConfig()): Express {
   const app = express();
   app.disable('x-powered-by');
+  // API answers are computed per request and never revalidated, so hashing each one for an ETag is wasted work
+  // (up to a tenth of a recommendation's cost); static files keep their own validators.
+  app.set('etag', false);
   app.set('trust proxy', 'loopback');
 
   app.use(
