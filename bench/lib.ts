@@ -106,22 +106,53 @@ export async function cannon(opts: { url: string; bodies: object[]; connections?
   return { requestsPerSec: result.requests.average, p99Ms: result.latency.p99, errors: result.errors, non2xx: result.non2xx };
 }
 
-/** Measures the route and the baseline in the same run and prints req/s, p99 and the ratio. */
-export async function compareWithBaseline(name: string, route: { url: string; bodies: object[] }, opts: { connections?: number; durationS?: number } = {}): Promise<{ route: Measured; baseline: Measured; ratio: number }> {
+const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+
+/**
+ * Measures the baseline and the route in alternating rounds (BENCH_ROUNDS, default 3) and reports each round
+ * and the medians: on a shared VM the machine's speed drifts between runs, and a ratio taken within a round
+ * cancels that drift where one long run of each would not.
+ */
+export async function compareWithBaseline(
+  name: string,
+  route: { url: string; bodies: object[] },
+  opts: { connections?: number; durationS?: number; rounds?: number } = {},
+): Promise<{ route: Measured; baseline: Measured; ratio: number }> {
+  const rounds = opts.rounds ?? Number(process.env.BENCH_ROUNDS ?? 3);
+  const c = opts.connections ?? 50;
+  const run = { connections: c, durationS: opts.durationS ?? 10 };
   const base = await startBaseline();
   try {
     // A short warm-up of each, so JIT and connection pools are ready before the measured runs.
-    await cannon({ url: `${base.url}/baseline`, bodies: route.bodies, durationS: 2, connections: opts.connections });
-    await cannon({ ...route, durationS: 2, connections: opts.connections });
-    const baseline = await cannon({ url: `${base.url}/baseline`, bodies: route.bodies, ...opts });
-    const measured = await cannon({ ...route, ...opts });
-    const ratio = measured.requestsPerSec / baseline.requestsPerSec;
-    const c = opts.connections ?? 50;
-    console.log(`\n${name} (${c} connections, ${opts.durationS ?? 10} s each)`);
-    console.log(`  bare express   ${baseline.requestsPerSec.toFixed(0).padStart(7)} req/s   p99 ${String(baseline.p99Ms).padStart(4)} ms`);
-    console.log(`  ${name.padEnd(14)} ${measured.requestsPerSec.toFixed(0).padStart(7)} req/s   p99 ${String(measured.p99Ms).padStart(4)} ms   errors ${measured.errors}, non-2xx ${measured.non2xx}`);
-    console.log(`  ratio ${ratio.toFixed(3)}`);
-    return { route: measured, baseline, ratio };
+    await cannon({ url: `${base.url}/baseline`, bodies: route.bodies, durationS: 2, connections: c });
+    await cannon({ ...route, durationS: 2, connections: c });
+    console.log(`\n${name} (${c} connections, ${run.durationS} s each, ${rounds} alternating rounds)`);
+    const results: { baseline: Measured; route: Measured; ratio: number }[] = [];
+    for (let i = 0; i < rounds; i++) {
+      const baseline = await cannon({ url: `${base.url}/baseline`, bodies: route.bodies, ...run });
+      const measured = await cannon({ ...route, ...run });
+      const ratio = measured.requestsPerSec / baseline.requestsPerSec;
+      results.push({ baseline, route: measured, ratio });
+      console.log(
+        `  round ${i + 1}: bare express ${baseline.requestsPerSec.toFixed(0).padStart(6)} req/s p99 ${String(baseline.p99Ms).padStart(3)} ms | ` +
+          `${name} ${measured.requestsPerSec.toFixed(0).padStart(6)} req/s p99 ${String(measured.p99Ms).padStart(3)} ms | ratio ${ratio.toFixed(3)}` +
+          (measured.errors || measured.non2xx ? ` | errors ${measured.errors}, non-2xx ${measured.non2xx}` : ''),
+      );
+    }
+    const pick = (f: (r: (typeof results)[number]) => number) => median(results.map(f));
+    const summary = {
+      baseline: { requestsPerSec: pick((r) => r.baseline.requestsPerSec), p99Ms: pick((r) => r.baseline.p99Ms), errors: 0, non2xx: 0 },
+      route: {
+        requestsPerSec: pick((r) => r.route.requestsPerSec),
+        p99Ms: pick((r) => r.route.p99Ms),
+        errors: results.reduce((s, r) => s + r.route.errors, 0),
+        non2xx: results.reduce((s, r) => s + r.route.non2xx, 0),
+      },
+      ratio: pick((r) => r.ratio),
+    };
+    console.log(`  median: bare express ${summary.baseline.requestsPerSec.toFixed(0)} req/s p99 ${summary.baseline.p99Ms} ms; ${name} ${summary.route.requestsPerSec.toFixed(0)} req/s p99 ${summary.route.p99Ms} ms; ratio ${summary.ratio.toFixed(3)}`);
+    if (summary.route.errors || summary.route.non2xx) console.log(`  errors ${summary.route.errors}, non-2xx ${summary.route.non2xx} (the figures do not count)`);
+    return summary;
   } finally {
     await base.close();
   }

@@ -62,7 +62,7 @@ describe('memoised class-validator metadata', () => {
     const asyncOnes = dtoClasses.flatMap((cls) =>
       storage
         .getTargetValidationMetadatas(...lookupArgs(cls))
-        .filter((m) => m.async || (m.constraintCls && storage.getTargetValidatorConstraints(m.constraintCls).some((c) => c.async)))
+        .filter((m) => m.constraintCls && storage.getTargetValidatorConstraints(m.constraintCls).some((c) => c.async))
         .map((m) => `${cls.name}.${m.propertyName}`),
     );
     expect(asyncOnes).toEqual([]);

@@ -17,6 +17,7 @@ import {
   ValidateNested,
 } from 'class-validator';
 import { fitmentSortFields, isIn, loadStationKinds, PageQueryDto, sortValues, type LoadStationKind, type RateInUnitsDto } from './common';
+import { fitmentRanges, withUnit, type FieldRange } from './ranges';
 
 // ---------- responses ----------
 
@@ -153,13 +154,11 @@ export class FitmentListQueryDto extends PageQueryDto {
 }
 
 const num = (what: string) => IsNumber({ allowNaN: false, allowInfinity: false }, { message: `${what} is a number.` });
-const range = (min: number, max: number, unit: string) => [
-  Min(min, { message: `Must be at least ${min} ${unit}.` }),
-  Max(max, { message: `Must be at most ${max} ${unit}.` }),
-];
-function InRange(min: number, max: number, unit: string): PropertyDecorator {
+/** The field's range from the shared table, in the words the back-office form also uses. */
+function InRange(range: FieldRange): PropertyDecorator {
   return (target, key) => {
-    for (const d of range(min, max, unit)) d(target, key);
+    Min(range.min, { message: `Must be at least ${withUnit(range.min, range.unit)}.` })(target, key);
+    Max(range.max, { message: `Must be at most ${withUnit(range.max, range.unit)}.` })(target, key);
   };
 }
 
@@ -168,31 +167,31 @@ export class LoadStationInputDto {
   station!: LoadStationKind;
 
   @num('Position')
-  @InRange(0, 2500, 'mm')
+  @InRange(fitmentRanges.stationPositionMm)
   positionMm!: number;
 
   @num('Maximum load')
-  @InRange(1, 250, 'kg')
+  @InRange(fitmentRanges.stationMaxLoadKg)
   maxLoadKg!: number;
 }
 
 export class LeveragePointInputDto {
   @num('Wheel travel')
-  @InRange(0, 400, 'mm')
+  @InRange(fitmentRanges.curveWheelTravelMm)
   wheelTravelMm!: number;
 
   @num('Ratio')
-  @InRange(1, 5, '')
+  @InRange(fitmentRanges.curveRatio)
   ratio!: number;
 }
 
 export class SagPairInputDto {
   @num('Static sag')
-  @InRange(0, 200, 'mm or %')
+  @InRange(fitmentRanges.staticSag)
   static!: number;
 
   @num('Rider sag')
-  @InRange(1, 200, 'mm or %')
+  @InRange(fitmentRanges.riderSag)
   rider!: number;
 }
 
@@ -233,7 +232,7 @@ export class TorqueInputDto {
   fastener!: string;
 
   @num('Torque')
-  @InRange(0.5, 500, 'N·m')
+  @InRange(fitmentRanges.torqueNm)
   torqueNm!: number;
 }
 
@@ -256,11 +255,11 @@ export class FitmentInputDto {
   variant?: string;
 
   @IsInt({ message: 'First year is a whole number.' })
-  @InRange(1950, 2100, '')
+  @InRange(fitmentRanges.yearFrom)
   yearFrom!: number;
 
   @IsInt({ message: 'Last year is a whole number.' })
-  @InRange(1950, 2100, '')
+  @InRange(fitmentRanges.yearTo)
   yearTo!: number;
 
   @IsIn(['sprung', 'wet'], { message: 'Mass input is sprung or wet.' })
@@ -268,40 +267,40 @@ export class FitmentInputDto {
 
   @ValidateIf((o: FitmentInputDto) => o.massInput !== 'wet' || o.frontSprungMassKg != null)
   @num('Front sprung mass')
-  @InRange(20, 400, 'kg')
+  @InRange(fitmentRanges.frontSprungMassKg)
   frontSprungMassKg?: number | null;
 
   @ValidateIf((o: FitmentInputDto) => o.massInput !== 'wet' || o.rearSprungMassKg != null)
   @num('Rear sprung mass')
-  @InRange(20, 400, 'kg')
+  @InRange(fitmentRanges.rearSprungMassKg)
   rearSprungMassKg?: number | null;
 
   @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.wetMassKg != null)
   @num('Wet mass')
-  @InRange(80, 600, 'kg')
+  @InRange(fitmentRanges.wetMassKg)
   wetMassKg?: number | null;
 
   @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.frontStaticSharePct != null)
   @num('Front share')
-  @InRange(30, 70, '%')
+  @InRange(fitmentRanges.frontStaticSharePct)
   frontStaticSharePct?: number | null;
 
   @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.frontUnsprungMassKg != null)
   @num('Front unsprung mass')
-  @InRange(5, 60, 'kg')
+  @InRange(fitmentRanges.frontUnsprungMassKg)
   frontUnsprungMassKg?: number | null;
 
   @ValidateIf((o: FitmentInputDto) => o.massInput === 'wet' || o.rearUnsprungMassKg != null)
   @num('Rear unsprung mass')
-  @InRange(5, 60, 'kg')
+  @InRange(fitmentRanges.rearUnsprungMassKg)
   rearUnsprungMassKg?: number | null;
 
   @num('Rated load')
-  @InRange(50, 400, 'kg')
+  @InRange(fitmentRanges.ratedLoadKg)
   ratedLoadKg!: number;
 
   @num('Wheelbase')
-  @InRange(1000, 2000, 'mm')
+  @InRange(fitmentRanges.wheelbaseMm)
   wheelbaseMm!: number;
 
   @IsArray({ message: 'Load stations are a list.' })
@@ -313,7 +312,7 @@ export class FitmentInputDto {
 
   @ValidateIf((o: FitmentInputDto) => o.rearLeverageCurve == null)
   @num('Leverage ratio')
-  @InRange(1, 5, '')
+  @InRange(fitmentRanges.rearLeverageRatio)
   rearLeverageRatio?: number | null;
 
   @ValidateIf((o: FitmentInputDto) => o.rearLeverageCurve != null)
@@ -325,72 +324,72 @@ export class FitmentInputDto {
   rearLeverageCurve?: LeveragePointInputDto[] | null;
 
   @num('Rear wheel travel')
-  @InRange(50, 350, 'mm')
+  @InRange(fitmentRanges.rearWheelTravelMm)
   rearWheelTravelMm!: number;
 
   @num('Shock stroke')
-  @InRange(20, 150, 'mm')
+  @InRange(fitmentRanges.shockStrokeMm)
   shockStrokeMm!: number;
 
   @num('Rear preload minimum')
-  @InRange(0, 40, 'mm')
+  @InRange(fitmentRanges.rearPreloadMinMm)
   rearPreloadMinMm!: number;
 
   @num('Rear preload maximum')
-  @InRange(0, 40, 'mm')
+  @InRange(fitmentRanges.rearPreloadMaxMm)
   rearPreloadMaxMm!: number;
 
   @num('Adjuster pitch')
-  @InRange(0.1, 5, 'mm per turn')
+  @InRange(fitmentRanges.rearAdjusterPitchMm)
   rearAdjusterPitchMm!: number;
 
   @num('Shock spring inner diameter')
-  @InRange(10, 100, 'mm')
+  @InRange(fitmentRanges.shockSpringInnerDiameterMm)
   shockSpringInnerDiameterMm!: number;
 
   @num('Shock spring shortest free length')
-  @InRange(50, 700, 'mm')
+  @InRange(fitmentRanges.shockSpringFreeLengthMinMm)
   shockSpringFreeLengthMinMm!: number;
 
   @num('Shock spring longest free length')
-  @InRange(50, 700, 'mm')
+  @InRange(fitmentRanges.shockSpringFreeLengthMaxMm)
   shockSpringFreeLengthMaxMm!: number;
 
   @num('Fork angle')
-  @InRange(0, 40, '°')
+  @InRange(fitmentRanges.forkAngleDeg)
   forkAngleDeg!: number;
 
   @num('Fork travel')
-  @InRange(50, 350, 'mm')
+  @InRange(fitmentRanges.forkTravelMm)
   forkTravelMm!: number;
 
   @IsInt({ message: 'Number of fork springs is 1 or 2.' })
-  @InRange(1, 2, 'springs')
+  @InRange(fitmentRanges.forkSpringCount)
   forkSpringCount!: number;
 
   @num('Fork preload minimum')
-  @InRange(0, 40, 'mm')
+  @InRange(fitmentRanges.forkPreloadMinMm)
   forkPreloadMinMm!: number;
 
   @num('Fork preload maximum')
-  @InRange(0, 40, 'mm')
+  @InRange(fitmentRanges.forkPreloadMaxMm)
   forkPreloadMaxMm!: number;
 
   @IsOptional()
   @num('Fork adjuster pitch')
-  @InRange(0.1, 5, 'mm per turn')
+  @InRange(fitmentRanges.forkAdjusterPitchMm)
   forkAdjusterPitchMm?: number | null;
 
   @num('Fork spring inner diameter')
-  @InRange(10, 100, 'mm')
+  @InRange(fitmentRanges.forkSpringInnerDiameterMm)
   forkSpringInnerDiameterMm!: number;
 
   @num('Fork spring shortest free length')
-  @InRange(50, 700, 'mm')
+  @InRange(fitmentRanges.forkSpringFreeLengthMinMm)
   forkSpringFreeLengthMinMm!: number;
 
   @num('Fork spring longest free length')
-  @InRange(50, 700, 'mm')
+  @InRange(fitmentRanges.forkSpringFreeLengthMaxMm)
   forkSpringFreeLengthMaxMm!: number;
 
   @ValidateNested()
@@ -398,19 +397,19 @@ export class FitmentInputDto {
   sag!: SagInputDto;
 
   @num('Stock fork spring rate')
-  @InRange(1, 300, 'N/mm')
+  @InRange(fitmentRanges.stockForkRateNPerMm)
   stockForkRateNPerMm!: number;
 
   @num('Stock fork spring free length')
-  @InRange(50, 700, 'mm')
+  @InRange(fitmentRanges.stockForkFreeLengthMm)
   stockForkFreeLengthMm!: number;
 
   @num('Stock shock spring rate')
-  @InRange(1, 300, 'N/mm')
+  @InRange(fitmentRanges.stockShockRateNPerMm)
   stockShockRateNPerMm!: number;
 
   @num('Stock shock spring free length')
-  @InRange(50, 700, 'mm')
+  @InRange(fitmentRanges.stockShockFreeLengthMm)
   stockShockFreeLengthMm!: number;
 
   @IsOptional()

@@ -5,3 +5,4 @@ export * from './compatibility.dto';
 export * from './recommendation.dto';
 export * from './audit.dto';
 export * from './csv.dto';
+export * from './ranges';

@@ -37,6 +37,7 @@ import {
   type SpringEnd,
   type SpringEndType,
 } from './common';
+import { springRanges, withUnit, type FieldRange } from './ranges';
 
 // ---------- responses ----------
 
@@ -169,21 +170,26 @@ export class StaffProductListQueryDto extends ProductListQueryDto {
 
 const num = (what: string) => IsNumber({ allowNaN: false, allowInfinity: false }, { message: `${what} is a number.` });
 
+/** A spring field's range from the shared table, worded "Wire diameter is at most 25 mm." as the form words it. */
+function NamedRange(label: string, range: FieldRange): PropertyDecorator {
+  return (target, key) => {
+    Min(range.min, { message: `${label} is at least ${withUnit(range.min, range.unit)}.` })(target, key);
+    Max(range.max, { message: `${label} is at most ${withUnit(range.max, range.unit)}.` })(target, key);
+  };
+}
+
 /** The spring's wire, coils, ends and free length. */
 export class SpringGeometryFieldsDto {
   @num('Wire diameter')
-  @Min(0.5, { message: 'Wire diameter is at least 0.5 mm.' })
-  @Max(25, { message: 'Wire diameter is at most 25 mm.' })
+  @NamedRange('Wire diameter', springRanges.wireDiameterMm)
   wireDiameterMm!: number;
 
   @num('Outer diameter')
-  @Min(10, { message: 'Outer diameter is at least 10 mm.' })
-  @Max(150, { message: 'Outer diameter is at most 150 mm.' })
+  @NamedRange('Outer diameter', springRanges.outerDiameterMm)
   outerDiameterMm!: number;
 
   @num('Total coils')
-  @Min(3, { message: 'A spring has at least 3 coils.' })
-  @Max(100, { message: 'A spring has at most 100 coils.' })
+  @NamedRange('Total coils', springRanges.totalCoils)
   totalCoils!: number;
 
   @isIn(springEndTypes, 'End type')
@@ -194,8 +200,7 @@ export class SpringGeometryFieldsDto {
   material!: string;
 
   @num('Free length')
-  @Min(50, { message: 'Free length is at least 50 mm.' })
-  @Max(700, { message: 'Free length is at most 700 mm.' })
+  @NamedRange('Free length', springRanges.freeLengthMm)
   freeLengthMm!: number;
 }
 
@@ -204,8 +209,7 @@ export class SpringGeometryInputDto extends SpringGeometryFieldsDto {
   /** When given, the reply says how far it is from the computed rate. */
   @IsOptional()
   @num('Rate')
-  @Min(1, { message: 'Rate is at least 1 N/mm.' })
-  @Max(300, { message: 'Rate is at most 300 N/mm.' })
+  @NamedRange('Rate', springRanges.rateNPerMm)
   rateNPerMm?: number;
 }
 
@@ -214,22 +218,19 @@ export class SpringDetailsInputDto extends SpringGeometryFieldsDto {
   end!: SpringEnd;
 
   @num('Rate')
-  @Min(1, { message: 'Rate is at least 1 N/mm.' })
-  @Max(300, { message: 'Rate is at most 300 N/mm.' })
+  @NamedRange('Rate', springRanges.rateNPerMm)
   rateNPerMm!: number;
 
   /** When omitted it is outer diameter − 2 × wire diameter. */
   @IsOptional()
   @num('Inner diameter')
-  @Min(5, { message: 'Inner diameter is at least 5 mm.' })
-  @Max(140, { message: 'Inner diameter is at most 140 mm.' })
+  @NamedRange('Inner diameter', springRanges.innerDiameterMm)
   innerDiameterMm?: number | null;
 
   /** When omitted the engine's computed solid length is used. */
   @IsOptional()
   @num('Solid length')
-  @Min(5, { message: 'Solid length is at least 5 mm.' })
-  @Max(700, { message: 'Solid length is at most 700 mm.' })
+  @NamedRange('Solid length', springRanges.solidLengthMm)
   solidLengthMm?: number | null;
 }
 

@@ -1,57 +1,56 @@
 import type { FitmentDto, LoadStationKind, SagEndDto } from '@shared/catalogue';
 import { fitmentProblems, type FitmentRuleFields } from '@shared/catalogue/fitment-rules';
+import { fitmentRanges, withUnit, type FieldRange } from '@shared/catalogue/ranges';
 import { stationKinds } from '../catalogue-labels';
 import type { FitmentInput } from '../api/staff-catalogue';
 
 type N = number | null;
 
-/** A quantity field of the fitment form: its label, unit and the range the server also enforces. */
-export interface QuantitySpec {
+/** A quantity field of a back-office form: its label and the range the server also enforces. */
+export interface QuantitySpec extends FieldRange {
   label: string;
-  unit: string;
-  min: number;
-  max: number;
-  integer?: boolean;
+  /** Shown beside the field when it differs from the unit messages use. */
+  displayUnit?: string;
   optional?: boolean;
   hint?: string;
   /** 'named' words a range message as the server does for springs: "Wire diameter is at most 25 mm." */
   phrasing?: 'must' | 'named';
 }
 
-// Ranges mirror FitmentInputDto so staff see the server's rule before they press save.
+// The server's ranges (one shared table), so staff see its rule before they press save.
 export const quantities = {
-  yearFrom: { label: 'First year', unit: 'year', min: 1950, max: 2100, integer: true },
-  yearTo: { label: 'Last year', unit: 'year', min: 1950, max: 2100, integer: true },
-  frontSprungMassKg: { label: 'Front sprung mass', unit: 'kg', min: 20, max: 400 },
-  rearSprungMassKg: { label: 'Rear sprung mass', unit: 'kg', min: 20, max: 400 },
-  wetMassKg: { label: 'Wet mass', unit: 'kg', min: 80, max: 600, hint: 'Ready to ride: fluids and a full tank.' },
-  frontStaticSharePct: { label: 'Front share of wet mass', unit: '%', min: 30, max: 70 },
-  frontUnsprungMassKg: { label: 'Front unsprung mass', unit: 'kg', min: 5, max: 60 },
-  rearUnsprungMassKg: { label: 'Rear unsprung mass', unit: 'kg', min: 5, max: 60 },
-  ratedLoadKg: { label: 'Rated load', unit: 'kg', min: 50, max: 400, hint: 'The most the bike may carry: riders, gear and luggage.' },
-  wheelbaseMm: { label: 'Wheelbase', unit: 'mm', min: 1000, max: 2000 },
-  rearLeverageRatio: { label: 'Leverage ratio', unit: ':1', min: 1, max: 5, hint: 'Wheel travel over shock travel.' },
-  rearWheelTravelMm: { label: 'Rear wheel travel', unit: 'mm', min: 50, max: 350 },
-  shockStrokeMm: { label: 'Shock stroke', unit: 'mm', min: 20, max: 150 },
-  rearPreloadMinMm: { label: 'Rear preload minimum', unit: 'mm', min: 0, max: 40 },
-  rearPreloadMaxMm: { label: 'Rear preload maximum', unit: 'mm', min: 0, max: 40 },
-  rearAdjusterPitchMm: { label: 'Rear adjuster pitch', unit: 'mm/turn', min: 0.1, max: 5 },
-  shockSpringInnerDiameterMm: { label: 'Shock spring inner diameter', unit: 'mm', min: 10, max: 100 },
-  shockSpringFreeLengthMinMm: { label: 'Shock spring free length from', unit: 'mm', min: 50, max: 700 },
-  shockSpringFreeLengthMaxMm: { label: 'Shock spring free length to', unit: 'mm', min: 50, max: 700 },
-  forkAngleDeg: { label: 'Fork angle', unit: '°', min: 0, max: 40, hint: 'From vertical.' },
-  forkTravelMm: { label: 'Fork travel', unit: 'mm', min: 50, max: 350 },
-  forkSpringCount: { label: 'Fork springs', unit: 'springs', min: 1, max: 2, integer: true },
-  forkPreloadMinMm: { label: 'Fork preload minimum', unit: 'mm', min: 0, max: 40 },
-  forkPreloadMaxMm: { label: 'Fork preload maximum', unit: 'mm', min: 0, max: 40 },
-  forkAdjusterPitchMm: { label: 'Fork adjuster pitch', unit: 'mm/turn', min: 0.1, max: 5, optional: true, hint: 'Leave empty when the fork has no preload adjuster.' },
-  forkSpringInnerDiameterMm: { label: 'Fork spring inner diameter', unit: 'mm', min: 10, max: 100 },
-  forkSpringFreeLengthMinMm: { label: 'Fork spring free length from', unit: 'mm', min: 50, max: 700 },
-  forkSpringFreeLengthMaxMm: { label: 'Fork spring free length to', unit: 'mm', min: 50, max: 700 },
-  stockForkRateNPerMm: { label: 'Stock fork spring rate', unit: 'N/mm', min: 1, max: 300 },
-  stockForkFreeLengthMm: { label: 'Stock fork spring free length', unit: 'mm', min: 50, max: 700 },
-  stockShockRateNPerMm: { label: 'Stock shock spring rate', unit: 'N/mm', min: 1, max: 300 },
-  stockShockFreeLengthMm: { label: 'Stock shock spring free length', unit: 'mm', min: 50, max: 700 },
+  yearFrom: { label: 'First year', ...fitmentRanges.yearFrom },
+  yearTo: { label: 'Last year', ...fitmentRanges.yearTo },
+  frontSprungMassKg: { label: 'Front sprung mass', ...fitmentRanges.frontSprungMassKg },
+  rearSprungMassKg: { label: 'Rear sprung mass', ...fitmentRanges.rearSprungMassKg },
+  wetMassKg: { label: 'Wet mass', ...fitmentRanges.wetMassKg, hint: 'Ready to ride: fluids and a full tank.' },
+  frontStaticSharePct: { label: 'Front share of wet mass', ...fitmentRanges.frontStaticSharePct },
+  frontUnsprungMassKg: { label: 'Front unsprung mass', ...fitmentRanges.frontUnsprungMassKg },
+  rearUnsprungMassKg: { label: 'Rear unsprung mass', ...fitmentRanges.rearUnsprungMassKg },
+  ratedLoadKg: { label: 'Rated load', ...fitmentRanges.ratedLoadKg, hint: 'The most the bike may carry: riders, gear and luggage.' },
+  wheelbaseMm: { label: 'Wheelbase', ...fitmentRanges.wheelbaseMm },
+  rearLeverageRatio: { label: 'Leverage ratio', ...fitmentRanges.rearLeverageRatio, displayUnit: ':1', hint: 'Wheel travel over shock travel.' },
+  rearWheelTravelMm: { label: 'Rear wheel travel', ...fitmentRanges.rearWheelTravelMm },
+  shockStrokeMm: { label: 'Shock stroke', ...fitmentRanges.shockStrokeMm },
+  rearPreloadMinMm: { label: 'Rear preload minimum', ...fitmentRanges.rearPreloadMinMm },
+  rearPreloadMaxMm: { label: 'Rear preload maximum', ...fitmentRanges.rearPreloadMaxMm },
+  rearAdjusterPitchMm: { label: 'Rear adjuster pitch', ...fitmentRanges.rearAdjusterPitchMm },
+  shockSpringInnerDiameterMm: { label: 'Shock spring inner diameter', ...fitmentRanges.shockSpringInnerDiameterMm },
+  shockSpringFreeLengthMinMm: { label: 'Shock spring free length from', ...fitmentRanges.shockSpringFreeLengthMinMm },
+  shockSpringFreeLengthMaxMm: { label: 'Shock spring free length to', ...fitmentRanges.shockSpringFreeLengthMaxMm },
+  forkAngleDeg: { label: 'Fork angle', ...fitmentRanges.forkAngleDeg, hint: 'From vertical.' },
+  forkTravelMm: { label: 'Fork travel', ...fitmentRanges.forkTravelMm },
+  forkSpringCount: { label: 'Fork springs', ...fitmentRanges.forkSpringCount },
+  forkPreloadMinMm: { label: 'Fork preload minimum', ...fitmentRanges.forkPreloadMinMm },
+  forkPreloadMaxMm: { label: 'Fork preload maximum', ...fitmentRanges.forkPreloadMaxMm },
+  forkAdjusterPitchMm: { label: 'Fork adjuster pitch', ...fitmentRanges.forkAdjusterPitchMm, optional: true, hint: 'Leave empty when the fork has no preload adjuster.' },
+  forkSpringInnerDiameterMm: { label: 'Fork spring inner diameter', ...fitmentRanges.forkSpringInnerDiameterMm },
+  forkSpringFreeLengthMinMm: { label: 'Fork spring free length from', ...fitmentRanges.forkSpringFreeLengthMinMm },
+  forkSpringFreeLengthMaxMm: { label: 'Fork spring free length to', ...fitmentRanges.forkSpringFreeLengthMaxMm },
+  stockForkRateNPerMm: { label: 'Stock fork spring rate', ...fitmentRanges.stockForkRateNPerMm },
+  stockForkFreeLengthMm: { label: 'Stock fork spring free length', ...fitmentRanges.stockForkFreeLengthMm },
+  stockShockRateNPerMm: { label: 'Stock shock spring rate', ...fitmentRanges.stockShockRateNPerMm },
+  stockShockFreeLengthMm: { label: 'Stock shock spring free length', ...fitmentRanges.stockShockFreeLengthMm },
 } as const satisfies Record<string, QuantitySpec>;
 
 export type QuantityKey = keyof typeof quantities;
@@ -214,8 +213,8 @@ export function checkQuantity(value: N, spec: QuantitySpec): string {
   if (!Number.isFinite(value)) return `${spec.label} is a number.`;
   if (spec.integer && !Number.isInteger(value)) return `${spec.label} is a whole number.`;
   const lead = spec.phrasing === 'named' ? `${spec.label} is` : 'Must be';
-  if (value < spec.min) return `${lead} at least ${spec.min} ${spec.unit}.`;
-  if (value > spec.max) return `${lead} at most ${spec.max} ${spec.unit}.`;
+  if (value < spec.min) return `${lead} at least ${withUnit(spec.min, spec.unit)}.`;
+  if (value > spec.max) return `${lead} at most ${withUnit(spec.max, spec.unit)}.`;
   return '';
 }
 
@@ -233,26 +232,26 @@ export function checkFitmentDraft(d: FitmentDraft): Record<string, string> {
     if (!skip.has(key)) put(key, checkQuantity(d[key], spec));
   }
   presentStations(d).forEach((kind, i) => {
-    put(`loadStations.${i}.positionMm`, checkQuantity(d.stations[kind].positionMm, { label: 'Position', unit: 'mm', min: 0, max: 2500 }));
-    put(`loadStations.${i}.maxLoadKg`, checkQuantity(d.stations[kind].maxLoadKg, { label: 'Maximum load', unit: 'kg', min: 1, max: 250 }));
+    put(`loadStations.${i}.positionMm`, checkQuantity(d.stations[kind].positionMm, { label: 'Position', ...fitmentRanges.stationPositionMm }));
+    put(`loadStations.${i}.maxLoadKg`, checkQuantity(d.stations[kind].maxLoadKg, { label: 'Maximum load', ...fitmentRanges.stationMaxLoadKg }));
   });
   if (d.leverageMode === 'curve') {
     if (d.rearLeverageCurve.length < 2) put('rearLeverageCurve', 'A curve has at least 2 points.');
     d.rearLeverageCurve.forEach((pt, i) => {
-      put(`rearLeverageCurve.${i}.wheelTravelMm`, checkQuantity(pt.wheelTravelMm, { label: 'Wheel travel', unit: 'mm', min: 0, max: 400 }));
-      put(`rearLeverageCurve.${i}.ratio`, checkQuantity(pt.ratio, { label: 'Ratio', unit: '', min: 1, max: 5 }));
+      put(`rearLeverageCurve.${i}.wheelTravelMm`, checkQuantity(pt.wheelTravelMm, { label: 'Wheel travel', ...fitmentRanges.curveWheelTravelMm }));
+      put(`rearLeverageCurve.${i}.ratio`, checkQuantity(pt.ratio, { label: 'Ratio', ...fitmentRanges.curveRatio }));
     });
   }
   for (const end of ['front', 'rear'] as const) {
     for (const style of ['road', 'adventure', 'offRoad'] as const) {
       const sp = d.sag[end][style];
-      put(`sag.${end}.${style}.static`, checkQuantity(sp.static, { label: 'Static sag', unit: d.sag[end].unit === 'pct' ? '%' : 'mm', min: 0, max: 200 }));
-      put(`sag.${end}.${style}.rider`, checkQuantity(sp.rider, { label: 'Rider sag', unit: d.sag[end].unit === 'pct' ? '%' : 'mm', min: 1, max: 200 }));
+      put(`sag.${end}.${style}.static`, checkQuantity(sp.static, { label: 'Static sag', ...fitmentRanges.staticSag }));
+      put(`sag.${end}.${style}.rider`, checkQuantity(sp.rider, { label: 'Rider sag', ...fitmentRanges.riderSag }));
     }
   }
   d.torques.forEach((t, i) => {
     if (!t.fastener.trim()) put(`torques.${i}.fastener`, 'Name the fastener.');
-    put(`torques.${i}.torqueNm`, checkQuantity(t.torqueNm, { label: 'Torque', unit: 'N·m', min: 0.5, max: 500 }));
+    put(`torques.${i}.torqueNm`, checkQuantity(t.torqueNm, { label: 'Torque', ...fitmentRanges.torqueNm }));
   });
   // The server's own rules across fields, after the per-field ones so a field shows its first problem.
   for (const [key, message] of Object.entries(fitmentProblems(ruleFieldsFromDraft(d)))) put(key, message);

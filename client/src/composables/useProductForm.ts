@@ -2,7 +2,8 @@ import type { StaffProductDto } from '@shared/catalogue';
 import { currency, skuPattern, type ProductKind, type SpringEnd, type SpringEndType } from '@shared/catalogue/constants';
 import type { ProductInput } from '../api/staff-catalogue';
 import { eurosToCents } from '../format';
-import { checkQuantity } from './useFitmentForm';
+import { springRanges } from '@shared/catalogue/ranges';
+import { checkQuantity, type QuantitySpec } from './useFitmentForm';
 
 type N = number | null;
 
@@ -116,16 +117,16 @@ export function productInputFromDraft(d: ProductDraft): ProductInput {
   };
 }
 
-// Ranges mirror SpringDetailsInputDto, so staff see the server's rule while still on the field.
+// The server's ranges (one shared table), so staff see its rule while still on the field.
 const springSpecs = {
-  rateNPerMm: { label: 'Rate', unit: 'N/mm', min: 1, max: 300 },
-  freeLengthMm: { label: 'Free length', unit: 'mm', min: 50, max: 700 },
-  wireDiameterMm: { label: 'Wire diameter', unit: 'mm', min: 0.5, max: 25 },
-  outerDiameterMm: { label: 'Outer diameter', unit: 'mm', min: 10, max: 150 },
-  totalCoils: { label: 'Total coils', unit: 'coils', min: 3, max: 100 },
-  innerDiameterMm: { label: 'Inner diameter', unit: 'mm', min: 5, max: 140, optional: true },
-  solidLengthMm: { label: 'Solid length', unit: 'mm', min: 5, max: 700, optional: true },
-} as const;
+  rateNPerMm: { label: 'Rate', ...springRanges.rateNPerMm },
+  freeLengthMm: { label: 'Free length', ...springRanges.freeLengthMm },
+  wireDiameterMm: { label: 'Wire diameter', ...springRanges.wireDiameterMm },
+  outerDiameterMm: { label: 'Outer diameter', ...springRanges.outerDiameterMm },
+  totalCoils: { label: 'Total coils', ...springRanges.totalCoils },
+  innerDiameterMm: { label: 'Inner diameter', ...springRanges.innerDiameterMm, optional: true },
+  solidLengthMm: { label: 'Solid length', ...springRanges.solidLengthMm, optional: true },
+} as const satisfies Record<string, QuantitySpec>;
 
 /** Cheap checks before sending; keys are the server's field paths (`spring.wireDiameterMm`). */
 export function checkProductDraft(d: ProductDraft): Record<string, string> {
