@@ -35,6 +35,14 @@ test('staff rule a spring out for a bike, riders are no longer offered it, and f
   await page.reload();
   await expect(compat.row('Shock', spring.sku)).toContainText('Excluded by staff');
 
+  // Narrowed to what riders are offered, the excluded spring leaves the table; every row left is offered.
+  await compat.showOfferedOnly(true);
+  await expect(compat.row('Shock', spring.sku)).toHaveCount(0);
+  await expect(compat.section().getByText(/of \d+ shock springs shown|None of the \d+ shock springs is offered/)).toBeVisible();
+  await expect(compat.table('Shock').getByRole('row').filter({ hasText: /Not offered|Excluded by staff/ })).toHaveCount(0);
+  await compat.showOfferedOnly(false);
+  await expect(compat.row('Shock', spring.sku)).toHaveCount(1);
+
   await compat.decide(spring.sku, 'Follow the rule');
   await expect(compat.row('Shock', spring.sku)).toContainText('Follows the rule');
   await expect(compat.row('Shock', spring.sku)).not.toContainText('Excluded by staff');

@@ -114,6 +114,11 @@ export class StaffFitmentCompatibility {
     return this.table(end).getByRole('row').filter({ hasText: sku });
   }
 
+  /** Narrows the tables to the springs riders are offered on this bike, or shows them all again. */
+  async showOfferedOnly(on: boolean) {
+    await this.section().getByRole('checkbox', { name: 'Show only the springs offered to riders' }).setChecked(on);
+  }
+
   /** Opens the fit dialog of one spring, picks a decision and saves it. */
   async decide(sku: string, choice: 'Follow the rule' | 'Force a fit' | 'Force no fit', note?: string) {
     await this.section().getByRole('button', { name: `Change the fit of ${sku}` }).click();
