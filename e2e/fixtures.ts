@@ -20,7 +20,7 @@ export interface Catalogue {
   forget: (kind: 'fitment' | 'product', id: string) => void;
 }
 
-type Fixtures = { signIn: (role: DemoRole) => Promise<Page>; catalogue: Catalogue };
+type Fixtures = { signIn: (role: DemoRole) => Promise<Page>; catalogue: Catalogue; noPolicyViolations: void };
 
 async function ok<T>(what: string, res: Awaited<ReturnType<APIRequestContext['post']>>): Promise<T> {
   if (!res.ok()) throw new Error(`${what}: ${res.status()} ${await res.text()}`);
@@ -28,6 +28,18 @@ async function ok<T>(what: string, res: Awaited<ReturnType<APIRequestContext['po
 }
 
 export const test = base.extend<Fixtures>({
+  // Every journey doubles as a check of the Content-Security-Policy: the browser reports each refusal on the console.
+  noPolicyViolations: [
+    async ({ page }, use) => {
+      const refused: string[] = [];
+      page.on('console', (msg) => {
+        if (msg.type() === 'error' && /Content Security Policy/i.test(msg.text())) refused.push(msg.text());
+      });
+      await use();
+      expect(refused, 'the page broke its Content-Security-Policy').toEqual([]);
+    },
+    { auto: true },
+  ],
   signIn: async ({ page }, use) => {
     await use(async (role) => {
       const signIn = new SignInPage(page);

@@ -1,7 +1,7 @@
 import 'reflect-metadata';
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { extname, join } from 'node:path';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
@@ -15,6 +15,7 @@ import { recommendationRoutes } from './recommendations/recommendations.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
+import { pageWithNonce, styleNonce } from './http/content-security';
 import { originCheck } from './http/origin-check';
 
 /** Builds the whole app; index.ts listens, tests listen on port 0. */
@@ -33,8 +34,8 @@ export function createApp(config: Config = getConfig()): Express {
         directives: {
           defaultSrc: ["'self'"],
           scriptSrc: ["'self'"],
-          // The component library injects its theme as <style> elements at run time.
-          styleSrc: ["'self'", "'unsafe-inline'"],
+          // The component library injects its theme as <style> elements at run time; they carry the page's nonce.
+          styleSrc: ["'self'", styleNonce],
           imgSrc: ["'self'", 'data:', 'blob:'],
           fontSrc: ["'self'", 'data:'],
           connectSrc: ["'self'"],
@@ -96,12 +97,18 @@ export function createApp(config: Config = getConfig()): Express {
 function serveClient(app: Express, config: Config): void {
   const index = join(config.clientDist, 'index.html');
   if (!existsSync(index)) return;
+  const page = readFileSync(index, 'utf8');
+  // Each response carries its own nonce, so the page is never stored or revalidated against an older copy.
+  const sendPage: express.RequestHandler = (_req, res) => {
+    res.setHeader('Cache-Control', 'no-store');
+    res.type('html').send(pageWithNonce(page, res));
+  };
   app.use('/assets', express.static(join(config.clientDist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
+  app.get('/index.html', sendPage);
   app.use(express.static(config.clientDist, { index: false, maxAge: '1h' }));
   // Client-side routes get the SPA; a path with an extension is a missing file and stays 404.
   app.get('/{*splat}', (req, res, next) => {
     if (extname(req.path)) return next();
-    res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(index);
+    sendPage(req, res, next);
   });
 }

@@ -12,10 +12,14 @@ import App from './App.vue';
 import { router } from './router';
 import { LoadlinePreset } from './theme';
 
+// The server puts this response's style nonce in the page; the dev server leaves the slot as it is.
+const slot = document.querySelector<HTMLMetaElement>('meta[name="csp-nonce"]')?.content;
+const nonce = slot && slot !== 'loadline-csp-nonce' ? slot : undefined;
+
 const app = createApp(App);
 app.use(createPinia());
 app.use(router);
-app.use(PrimeVue, { theme: { preset: LoadlinePreset, options: { darkModeSelector: '.ll-dark', cssLayer: false } } });
+app.use(PrimeVue, { theme: { preset: LoadlinePreset, options: { darkModeSelector: '.ll-dark', cssLayer: false } }, csp: { nonce } });
 app.use(ToastService);
 app.use(ConfirmationService);
 app.mount('#app');
