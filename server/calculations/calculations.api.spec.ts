@@ -155,6 +155,7 @@ describe('bad input to the calculations gets 400 with a message per field, never
     ['a spring whose solid length equals its free length', '/rear-spring', { ...rearBody(), springs: [{ id: 'S', rateNPerMm: 60, freeLengthMm: 229, solidLengthMm: 229 }] }, 'springs.0.solidLengthMm'],
     ['two springs with the same id', '/rear-spring', { ...rearBody(), springs: [{ id: 'S', rateNPerMm: 60, freeLengthMm: 229 }, { id: 'S', rateNPerMm: 70, freeLengthMm: 229 }] }, 'springs'],
     ['a sag check whose rider reading is longer than the extended one', '/sag-check', { end: 'rear', extendedMm: 600, staticMm: 600, riderMm: 610, targets: { staticSagMm: 25, riderSagMm: 66 }, leverageRatio: 2, adjusterPitchMm: 1 }, 'riderMm'],
+    ['a geometry load above the force that closes the spring to solid', '/spring-geometry', { wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground', material: 'music-wire', freeLengthMm: 80, loadN: 1000 }, 'loadN'],
     ['a sag check of an unknown end', '/sag-check', { end: 'middle', extendedMm: 600, staticMm: 575, riderMm: 534, targets: { staticSagMm: 25, riderSagMm: 66 }, adjusterPitchMm: 1 }, 'end'],
   ];
   it.each(cases)('%s', async (_name, path, body, field) => {
