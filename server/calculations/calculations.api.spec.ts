@@ -145,6 +145,17 @@ describe('bad input to the calculations gets 400 with a message per field, never
     ['a fork angle out of range', '/fork-spring', { ...forkBody(), forkAngleDeg: 95 }, 'forkAngleDeg'],
     ['a geometry with no material', '/spring-geometry', { wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground' }, 'material'],
     ['a geometry with a wire wider than the spring', '/spring-geometry', { wireDiameterMm: 20, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain', material: 'music-wire' }, 'outsideDiameterMm'],
+    ['loads that all sit on the front axle, which leave the rear unloaded', '/rear-spring', { ...rearBody(), loads: [{ massKg: 80, positionMm: 0 }] }, 'loads'],
+    ['a top case behind the rear axle that takes the weight off the front', '/fork-spring', { ...forkBody(), loads: [{ massKg: 88, positionMm: 900 }, { massKg: 150, positionMm: 1900 }] }, 'loads'],
+    ['a load far behind the rear axle that lifts the front wheel', '/fork-spring', { ...forkBody(), loads: [{ massKg: 300, positionMm: 5000 }] }, 'loads'],
+    ['a load case that takes the weight off the front', '/fork-spring', { ...forkBody(), loads: undefined, cases: [{ name: 'solo', loads: [{ massKg: 88, positionMm: 900 }] }, { name: 'top case only', loads: [{ massKg: 20, positionMm: 1800 }] }] }, 'cases.1.loads'],
+    ['a leverage curve falling so steeply that no spring meets both sag targets', '/rear-spring', { ...rearBody(), leverageRatio: [{ wheelTravelMm: 0, ratio: 3.5 }, { wheelTravelMm: 70, ratio: 1.0 }] }, 'leverageRatio'],
+    ['an empty list of loads', '/rear-spring', { ...rearBody(), loads: [] }, 'loads'],
+    ['a preload range with its minimum above its maximum', '/rear-spring', { ...rearBody(), preloadRangeMm: { min: 12, max: 10 } }, 'preloadRangeMm.max'],
+    ['a spring whose solid length equals its free length', '/rear-spring', { ...rearBody(), springs: [{ id: 'S', rateNPerMm: 60, freeLengthMm: 229, solidLengthMm: 229 }] }, 'springs.0.solidLengthMm'],
+    ['two springs with the same id', '/rear-spring', { ...rearBody(), springs: [{ id: 'S', rateNPerMm: 60, freeLengthMm: 229 }, { id: 'S', rateNPerMm: 70, freeLengthMm: 229 }] }, 'springs'],
+    ['a sag check whose rider reading is longer than the extended one', '/sag-check', { end: 'rear', extendedMm: 600, staticMm: 600, riderMm: 610, targets: { staticSagMm: 25, riderSagMm: 66 }, leverageRatio: 2, adjusterPitchMm: 1 }, 'riderMm'],
+    ['a geometry load above the force that closes the spring to solid', '/spring-geometry', { wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground', material: 'music-wire', freeLengthMm: 80, loadN: 1000 }, 'loadN'],
     ['a sag check of an unknown end', '/sag-check', { end: 'middle', extendedMm: 600, staticMm: 575, riderMm: 534, targets: { staticSagMm: 25, riderSagMm: 66 }, adjusterPitchMm: 1 }, 'end'],
   ];
   it.each(cases)('%s', async (_name, path, body, field) => {
@@ -166,6 +177,19 @@ describe('bad input to the calculations gets 400 with a message per field, never
       .send(JSON.stringify(rearBody()).replace('"wheelbaseMm":1500', '"wheelbaseMm":1e999'));
     expect(inf.status).toBe(400);
     expect(inf.body.fields.wheelbaseMm).toBeDefined();
+  });
+});
+
+describe('the list limits are inclusive', () => {
+  it('answers 50 springs for each of 20 load cases of 20 loads', async () => {
+    const { loads: _l, ...rest } = rearBody();
+    const loads = Array.from({ length: 20 }, (_, i) => ({ massKg: 4, positionMm: 600 + i * 30 }));
+    const springs = Array.from({ length: 50 }, (_, i) => ({ id: `S-${i}`, rateNPerMm: 30 + 2 * i, freeLengthMm: 229, solidLengthMm: 110 }));
+    const cases = Array.from({ length: 20 }, (_, i) => ({ name: `case ${i}`, loads }));
+    const res = await testApp().http.post('/api/calculations/rear-spring').send({ ...rest, springs, cases });
+    expect(res.status).toBe(200);
+    expect(res.body.cases).toHaveLength(20);
+    for (const c of res.body.cases) expect(c.candidates).toHaveLength(50);
   });
 });
 

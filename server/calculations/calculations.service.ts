@@ -1,5 +1,5 @@
 import type { ForkSpringRequestDto, RearSpringRequestDto, SagCheckRequestDto, SpringGeometryRequestDto } from '../../shared/dto/calculations.dto';
-import { checkSag, computeForkSpring, computeRearSpring, computeSpringGeometry } from '../../shared/engine';
+import { checkSag, computeForkSpring, computeRearSpring, computeSpringGeometry, EngineInputError } from '../../shared/engine';
 import { AppError } from '../errors';
 
 // The DTOs have already been validated; an engine RangeError means inputs that pass field checks but not physics.
@@ -7,6 +7,7 @@ function guarded<T>(compute: () => T): T {
   try {
     return compute();
   } catch (e) {
+    if (e instanceof EngineInputError) throw AppError.validation(e.message, { [e.field]: e.message });
     if (e instanceof RangeError) throw AppError.validation(e.message, { body: e.message });
     throw e;
   }

@@ -1,3 +1,4 @@
+import { EngineInputError } from './errors';
 import type { CasesResult, Load, LoadCase, PreloadRange, RateInUnitsLike, SpringCandidateInput, SpringCandidateResult, SpringVerdict } from './types';
 
 /**
@@ -133,8 +134,17 @@ export function runCases<R extends { candidates: SpringCandidateResult[]; requir
   springs: readonly SpringCandidateInput[],
   run: (loads: readonly Load[]) => R,
 ): CasesResult<R> {
-  const outcomes = cases.map((c) => {
-    const result = run(c.loads);
+  const outcomes = cases.map((c, i) => {
+    let result: R;
+    try {
+      result = run(c.loads);
+    } catch (e) {
+      // Name the case, so the 400 points at the loads that broke the physics.
+      if (e instanceof EngineInputError) {
+        throw new EngineInputError(e.field === 'loads' ? `cases.${i}.loads` : e.field, `In the case “${c.name}”: ${e.message}`);
+      }
+      throw e;
+    }
     return { name: c.name, result, requiredRateNPerMm: result.requiredRate.nPerMm };
   });
   return combineCases(outcomes, springs.map((s) => s.id));

@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { g } from '../units';
 import { isCasesResult } from './candidates';
 import { computeForkSpring } from './fork';
+import { EngineInputError } from './errors';
 import type { ForkSpringInput, Load } from './types';
 
 const base = {
@@ -101,5 +102,45 @@ describe('fork spring properties (fast-check)', () => {
         },
       ),
     );
+  });
+});
+
+describe('fork spring: loads that take the weight off the front wheel', () => {
+  const fieldAndMessage = (input: ForkSpringInput): [string, string] | undefined => {
+    try {
+      computeForkSpring(input);
+    } catch (e) {
+      if (e instanceof EngineInputError) return [e.field, e.message];
+      throw e;
+    }
+    return undefined;
+  };
+
+  it('when the only load sits exactly on the rear axle, the front gains nothing, so the request is refused on the loads', () => {
+    expect(fieldAndMessage({ ...base, loads: [{ massKg: 80, positionMm: 1500 }] })?.[0]).toBe('loads');
+  });
+
+  it('when a top case behind the rear axle outweighs the front share of everything else, the request is refused on the loads instead of asking for a negative rate', () => {
+    // Statics: W_f = g·(80·(1500 − 900) + 150·(1500 − 1900))/1500 = −8·g N < 0.
+    expect(fieldAndMessage({ ...base, loads: [{ massKg: 80, positionMm: 900 }, { massKg: 150, positionMm: 1900 }] })?.[0]).toBe('loads');
+  });
+
+  it('when the loads lift the front wheel off the ground, says so', () => {
+    const [field, message] = fieldAndMessage({ ...base, loads: [{ massKg: 300, positionMm: 5000 }] }) ?? ['', ''];
+    expect(field).toBe('loads');
+    expect(message).toMatch(/lift the front wheel/);
+  });
+
+  it('with load cases, names the case that unloads the front', () => {
+    const { loads: _l, ...rest } = base;
+    const input = { ...rest, cases: [{ name: 'solo', loads: base.loads }, { name: 'top case only', loads: [{ massKg: 20, positionMm: 1800 }] }] };
+    const [field, message] = fieldAndMessage(input) ?? ['', ''];
+    expect(field).toBe('cases.1.loads');
+    expect(message).toMatch(/top case only/);
+  });
+
+  it('a load exactly on the front axle goes wholly to the fork', () => {
+    const r = computeForkSpring({ ...base, loads: [{ massKg: 80, positionMm: 0 }] });
+    expect(r.frontLoadN).toBeCloseTo(g * 80, 9);
   });
 });

@@ -1,5 +1,6 @@
 import { g, rateInUnits } from '../units';
 import { buildCandidate, rankCandidates, runCases } from './candidates';
+import { EngineInputError } from './errors';
 import { loadSplit } from './statics';
 import type {
   ForkSpringCasesResult,
@@ -67,6 +68,15 @@ export function evaluateForkSpring(model: ForkModel, spring: SpringCandidateInpu
 function forkForLoads(input: ForkSpringInput, loads: readonly Load[]): ForkSpringResult {
   const bikeLoadN = g * input.sprungMassKg;
   const frontLoadN = loadSplit(input.wheelbaseMm, loads).frontN;
+  // Rider sag can only exceed static sag when the loads press on the front; otherwise the required rate is 0 or negative.
+  if (!(frontLoadN > 0)) {
+    throw new EngineInputError(
+      'loads',
+      bikeLoadN + frontLoadN <= 0
+        ? 'The loads behind the rear axle lift the front wheel off the ground, so there is no fork sag to set.'
+        : 'The loads put no weight on the front wheel (they sit at or behind the rear axle), so no fork spring can give a rider sag deeper than the static sag.',
+    );
+  }
   const model: ForkModel = {
     cosAngle: Math.cos((input.forkAngleDeg * Math.PI) / 180),
     springCount: input.springCount ?? 2,
@@ -86,6 +96,7 @@ function forkForLoads(input: ForkSpringInput, loads: readonly Load[]): ForkSprin
  * Fork spring selection, per spring of `springCount` (default 2) working in parallel; sag is along the tubes.
  * Same output shape as `computeRearSpring` with `frontLoadN`; with `cases` it returns the same
  * `{ cases, coversAllCases, uncoveredBy }` shape. `adjusterTurns` is omitted when there is no adjuster pitch.
+ * Throws EngineInputError (on `loads`, or `cases.i.loads`) when the loads put no weight on the front wheel or lift it.
  * @example
  * computeForkSpring({ wheelbaseMm: 1500, sprungMassKg: 110, loads: [{ massKg: 80, positionMm: 900 }],
  *   forkAngleDeg: 25, forkTravelMm: 120, targets: { staticSagMm: 25, riderSagMm: 35 },

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { inToMm, nPerMmToLbfPerIn } from '../units';
+import { EngineInputError } from './errors';
 import { bergstrasserFactor, computeSpringGeometry, endCoils, shearModulusFor, wahlFactor } from './geometry';
 
 const within = (actual: number, expected: number, rel: number): void => {
@@ -102,6 +104,38 @@ describe('stress factors (Shigley, 10th ed., §10-2)', () => {
     });
     expect(r.shearStressAtLoadMPa).toBeCloseTo((r.bergstrasserFactor * 8 * 100 * 28.5) / (Math.PI * 2.5 ** 3), 9);
     expect(r.shearStressAtSolidMPa).toBeUndefined();
+  });
+});
+
+describe('a load the spring cannot reach', () => {
+  // Shigley's Mechanical Engineering Design, 10th ed., Problem 10-3 spring (k ≈ 1.314 N/mm, Ls = 35 mm) with an 80 mm free length.
+  const spring = { wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground', material: 'music-wire', freeLengthMm: 80 } as const;
+
+  it('refuses, on the load, more force than closes the spring to solid, k·(L0 − Ls)', () => {
+    const solidForceN = computeSpringGeometry(spring).rateNPerMm * 45;
+    let field: string | undefined;
+    try {
+      computeSpringGeometry({ ...spring, loadN: solidForceN + 1 });
+    } catch (e) {
+      if (e instanceof EngineInputError) field = e.field;
+      else throw e;
+    }
+    expect(field).toBe('loadN');
+  });
+
+  it('never reports a stress at load above the stress at solid (property)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 200, noNaN: true }), (loadN) => {
+        let r;
+        try {
+          r = computeSpringGeometry({ ...spring, loadN });
+        } catch (e) {
+          if (e instanceof EngineInputError) return;
+          throw e;
+        }
+        expect(r.shearStressAtLoadMPa ?? NaN).toBeLessThanOrEqual((r.shearStressAtSolidMPa ?? NaN) * (1 + 1e-12));
+      }),
+    );
   });
 });
 

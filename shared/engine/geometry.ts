@@ -1,3 +1,4 @@
+import { EngineInputError } from './errors';
 import type { SpringEndType, SpringGeometryInput, SpringGeometryResult } from './types';
 
 /** Shear modulus by wire size: `upToMm` is the largest wire diameter the value applies to. */
@@ -123,7 +124,8 @@ export function springShearStress(forceN: number, wireDiameterMm: number, meanDi
 /**
  * Geometry, rate and stresses of a helical compression spring from its wire, coils, ends and material
  * (or an explicit shear modulus). Stress at solid and travel to solid need the free length.
- * Throws RangeError for an unknown material, a spring with no active coils or an index ≤ 1.
+ * Throws RangeError for an unknown material, a spring with no active coils or an index ≤ 1, and EngineInputError
+ * (on `loadN`) for a load above the force that closes the spring to solid when the free length is given.
  * @example
  * computeSpringGeometry({ wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground',
  *   material: 'music-wire' }).rateNPerMm // 1.3142...
@@ -150,10 +152,16 @@ export function computeSpringGeometry(input: SpringGeometryInput): SpringGeometr
     wahlFactor: wahlFactor(C),
     bergstrasserFactor: kB,
   };
+  const travelToSolidMm = input.freeLengthMm === undefined ? undefined : input.freeLengthMm - solidLengthMm;
+  const solidForceN = travelToSolidMm === undefined ? undefined : rateNPerMm * travelToSolidMm;
+  // Past solid the coils sit on each other and carry the load in contact, so no torsional stress above the solid one exists.
+  if (input.loadN !== undefined && solidForceN !== undefined && solidForceN > 0 && input.loadN > solidForceN) {
+    throw new EngineInputError('loadN', `The spring is solid at ${Math.round(solidForceN * 10) / 10} N, so it cannot carry a load of ${input.loadN} N.`);
+  }
   if (input.loadN !== undefined) result.shearStressAtLoadMPa = tau(input.loadN);
-  if (input.freeLengthMm !== undefined) {
-    result.travelToSolidMm = input.freeLengthMm - solidLengthMm;
-    result.shearStressAtSolidMPa = tau(rateNPerMm * result.travelToSolidMm);
+  if (travelToSolidMm !== undefined && solidForceN !== undefined) {
+    result.travelToSolidMm = travelToSolidMm;
+    result.shearStressAtSolidMPa = tau(solidForceN);
   }
   return result;
 }

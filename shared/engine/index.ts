@@ -1,4 +1,5 @@
 export * from './types';
+export { EngineInputError } from './errors';
 export { brentRoot, bisectRoot, type RootOptions } from './solve';
 export { loadSplit, rearShare, type LoadSplit } from './statics';
 export {

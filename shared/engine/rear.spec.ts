@@ -1,11 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { g } from '../units';
-import { createLeverageCurve, solveShockEquilibrium } from './leverage';
+import { createLeverageCurve, leverageRatioAt, shockTravelAt, solveShockEquilibrium } from './leverage';
 import { isCasesResult } from './candidates';
 import { rearSpringExample } from './examples';
 import { computeRearSpring, rearPreloadNeeded, rearRequiredRate } from './rear';
-import type { LeveragePoint, RearSpringInput, RearSpringResult } from './types';
+import { EngineInputError } from './errors';
+import { loadSplit } from './statics';
+import type { LeveragePoint, Load, RearSpringInput, RearSpringResult } from './types';
 
 /** The request body from the issue (POST /api/calculations/rear-spring). */
 const issueExample = {
@@ -269,7 +271,7 @@ describe('rear spring robustness', () => {
     }
   });
 
-  it('never throws for any valid rider mass and curve, and keeps every predicted sag inside the travel (property)', () => {
+  it('for any valid rider mass and curve, refuses only a curve whose required rate is not positive, and keeps every predicted sag inside the travel (property)', () => {
     fc.assert(
       fc.property(
         fc.double({ min: 40, max: 160, noNaN: true }),
@@ -277,6 +279,13 @@ describe('rear spring robustness', () => {
         fc.integer({ min: 5, max: 40 }),
         (riderKg, ratios, step) => {
           const input = { ...body(riderKg), leverageRatio: ratios.map((ratio, i) => ({ wheelTravelMm: i * step, ratio })) };
+          const split = loadSplit(input.wheelbaseMm, input.loads ?? []);
+          const Fb = g * input.sprungMassKg;
+          const kReq = rearRequiredRate(createLeverageCurve(input.leverageRatio), Fb, Fb + split.rearN, input.targets);
+          if (!(kReq > 0)) {
+            expect(() => computeRearSpring(input)).toThrow(EngineInputError);
+            return;
+          }
           const r = computeRearSpring(input as RearSpringInput & { loads: [] }) as RearSpringResult;
           for (const c of r.candidates) {
             expect(c.staticSagMm).toBeGreaterThanOrEqual(0);
@@ -286,6 +295,112 @@ describe('rear spring robustness', () => {
         },
       ),
       { numRuns: 300 },
+    );
+  });
+});
+
+describe('rear spring: loads and curves that no spring can answer', () => {
+  const cases = (second: RearSpringInput['loads']): RearSpringInput => {
+    const { loads: _l, ...rest } = rearSpringExample();
+    return { ...rest, cases: [{ name: 'solo', loads: [{ massKg: 80, positionMm: 900 }] }, { name: 'front rack', loads: second ?? [] }] };
+  };
+  const fieldOf = (run: () => unknown): string | undefined => {
+    try {
+      run();
+    } catch (e) {
+      if (e instanceof EngineInputError) return e.field;
+      throw e;
+    }
+    return undefined;
+  };
+
+  it('when every load sits on the front axle, the rear gains nothing, so the request is refused on the loads instead of asking for a 0 N/mm spring', () => {
+    const input = { ...rearSpringExample(), loads: [{ massKg: 80, positionMm: 0 }] };
+    expect(fieldOf(() => computeRearSpring(input))).toBe('loads');
+  });
+
+  it('when the loads sit ahead of the front axle, the rear unloads, so the request is refused on the loads instead of asking for a negative rate', () => {
+    const input = { ...rearSpringExample(), loads: [{ massKg: 80, positionMm: -500 }] };
+    expect(fieldOf(() => computeRearSpring(input))).toBe('loads');
+  });
+
+  it('with load cases, names the case whose loads leave the rear unloaded', () => {
+    expect(fieldOf(() => computeRearSpring(cases([{ massKg: 20, positionMm: -300 }])))).toBe('cases.1.loads');
+  });
+
+  it('refuses, on the leverage ratio, a curve falling so steeply that the shock would have to push less at rider sag than at static sag', () => {
+    const input = { ...rearSpringExample(), leverageRatio: [{ wheelTravelMm: 0, ratio: 3.5 }, { wheelTravelMm: 70, ratio: 1.0 }] };
+    // Consistency: the spring force the targets ask for, LR(s)·F, is lower at rider sag than at static sag, so k = ΔF/Δy < 0.
+    const curve = createLeverageCurve(input.leverageRatio);
+    const Fb = g * input.sprungMassKg;
+    const Ft = Fb + loadSplit(input.wheelbaseMm, input.loads).rearN;
+    expect(rearRequiredRate(curve, Fb, Ft, input.targets)).toBeLessThan(0);
+    expect(fieldOf(() => computeRearSpring(input))).toBe('leverageRatio');
+  });
+});
+
+describe('rear spring on a rising leverage ratio', () => {
+  // Ratio rising 1.5 → 5.5 over 200 mm: the wheel rate k/LR − LR′·F turns negative once LR′·F·LR outgrows k.
+  const curvePoints: LeveragePoint[] = [{ wheelTravelMm: 0, ratio: 1.5 }, { wheelTravelMm: 200, ratio: 5.5 }];
+  const input = (rateNPerMm: number): RearSpringInput & { loads: Load[]; cases?: undefined } => ({
+    wheelbaseMm: 1500,
+    sprungMassKg: 120,
+    loads: [{ massKg: 30, positionMm: 900 }],
+    leverageRatio: curvePoints,
+    wheelTravelMm: 250,
+    shockStrokeMm: 90,
+    targets: { staticSagMm: 10, riderSagMm: 40 },
+    preloadRangeMm: { min: 0, max: 60 },
+    adjusterPitchMm: 1,
+    springs: [{ id: 'S', rateNPerMm, freeLengthMm: 300 }],
+  });
+  const curve = createLeverageCurve(curvePoints);
+  const slope = (5.5 - 1.5) / 200;
+
+  it('calls a spring too soft when its preload is in range but the rider-sag target is not a resting point (negative wheel rate there)', () => {
+    const r = computeRearSpring(input(50));
+    const c = r.candidates[0];
+    const Ft = r.bikeLoadN + r.rearLoadN;
+    // Consistency: d/ds [k·(p + y(s)) − LR(s)·F_t] = k/LR(s_r) − LR′·F_t < 0, so the balance at 40 mm is unstable.
+    expect(50 / leverageRatioAt(curve, 40) - slope * Ft).toBeLessThan(0);
+    expect(c?.preloadNeededMm).toBeGreaterThan(0);
+    expect(c?.preloadNeededMm).toBeLessThan(60);
+    expect(c?.riderSagMm).not.toBeCloseTo(40, 1);
+    expect(c?.verdict).toBe('too-soft');
+  });
+
+  it('keeps a spring stiff enough to rest on the target ok, with k·(p + y(s_r)) = LR(s_r)·F_t at the answer', () => {
+    const r = computeRearSpring(input(100));
+    const c = r.candidates[0];
+    expect(c?.verdict).toBe('ok');
+    expect(c?.riderSagMm).toBeCloseTo(40, 6);
+    const Ft = r.bikeLoadN + r.rearLoadN;
+    expect(100 * ((c?.preloadMm ?? NaN) + shockTravelAt(curve, c?.riderSagMm ?? NaN))).toBeCloseTo(leverageRatioAt(curve, c?.riderSagMm ?? NaN) * Ft, 6);
+  });
+
+  it('every ok spring on a straight rising or falling curve rests on the rider-sag target (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1.2, max: 4, noNaN: true }),
+        fc.double({ min: -0.5, max: 4, noNaN: true }),
+        fc.double({ min: 20, max: 200, noNaN: true }),
+        fc.double({ min: 0, max: 40, noNaN: true }),
+        fc.double({ min: 10, max: 60, noNaN: true }),
+        fc.double({ min: 30, max: 250, noNaN: true }),
+        (r0, rise, k, ss, gap, riderKg) => {
+          const points = [{ wheelTravelMm: 0, ratio: r0 }, { wheelTravelMm: 200, ratio: Math.max(1, r0 + rise) }];
+          const body = { ...input(k), leverageRatio: points, loads: [{ massKg: riderKg, positionMm: 900 }], targets: { staticSagMm: ss, riderSagMm: ss + gap } };
+          let result: RearSpringResult;
+          try {
+            result = computeRearSpring(body);
+          } catch (e) {
+            if (e instanceof EngineInputError && e.field === 'leverageRatio') return;
+            throw e;
+          }
+          for (const c of result.candidates) if (c.verdict === 'ok') expect(Math.abs(c.riderSagMm - (ss + gap))).toBeLessThan(1e-3);
+        },
+      ),
+      { numRuns: 3000 },
     );
   });
 });

@@ -1,5 +1,6 @@
 import { g, rateInUnits } from '../units';
 import { buildCandidate, rankCandidates, runCases } from './candidates';
+import { EngineInputError } from './errors';
 import { createLeverageCurve, leverageRatioAt, shockTravelAt, solveShockEquilibrium, type LeverageCurve } from './leverage';
 import { loadSplit } from './statics';
 import type {
@@ -46,24 +47,41 @@ export function rearPreloadNeeded(curve: LeverageCurve, rateNPerMm: number, tota
   return (leverageRatioAt(curve, riderSagMm) * totalLoadN) / rateNPerMm - shockTravelAt(curve, riderSagMm);
 }
 
+/** How far the settled rider sag may sit from its target before an in-range spring is judged not to hold it, mm. */
+const SETTLE_TOLERANCE_MM = 1e-3;
+
 /**
- * Evaluates one candidate spring on a prepared rear model.
+ * Evaluates one candidate spring on a prepared rear model. A spring whose preload is in range but which
+ * settles short of the rider-sag target (a rising ratio makes the wheel rate negative before it, so the
+ * target is not where the bike comes to rest) is too soft for the linkage.
  * @example evaluateRearSpring(model, { id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 })
  */
 export function evaluateRearSpring(model: RearModel, spring: SpringCandidateInput): SpringCandidateResult {
   const k = spring.rateNPerMm;
   const preloadNeededMm = rearPreloadNeeded(model.curve, k, model.totalLoadN, model.targets.riderSagMm);
   const ctx = { preloadRangeMm: model.preloadRangeMm, adjusterPitchMm: model.adjusterPitchMm, strokeMm: model.shockStrokeMm };
-  return buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => {
+  const result = buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => {
     const solve = (wheelForceN: number): number =>
       solveShockEquilibrium(model.curve, { rateNPerMm: k, preloadMm, wheelForceN, wheelTravelMm: model.wheelTravelMm });
     return [solve(model.bikeLoadN), solve(model.totalLoadN)];
   });
+  const settlesOnTarget = Math.abs(result.riderSagMm - model.targets.riderSagMm) <= SETTLE_TOLERANCE_MM;
+  if ((result.verdict === 'ok' || result.verdict === 'coil-bind') && !settlesOnTarget) return { ...result, verdict: 'too-soft' };
+  return result;
 }
 
 function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: readonly Load[]): RearSpringResult {
   const bikeLoadN = g * input.sprungMassKg;
   const rearLoadN = loadSplit(input.wheelbaseMm, loads).rearN;
+  // Rider sag can only exceed static sag when the loads press on the rear; otherwise the required rate is 0 or negative.
+  if (!(rearLoadN > 0)) {
+    throw new EngineInputError(
+      'loads',
+      bikeLoadN + rearLoadN <= 0
+        ? 'The loads ahead of the front axle lift the rear wheel off the ground, so there is no rear sag to set.'
+        : 'The loads put no weight on the rear wheel (they sit at or ahead of the front axle), so no shock spring can give a rider sag deeper than the static sag.',
+    );
+  }
   const model: RearModel = {
     curve,
     bikeLoadN,
@@ -75,6 +93,13 @@ function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: reado
     shockStrokeMm: input.shockStrokeMm,
   };
   const required = rearRequiredRate(curve, bikeLoadN, model.totalLoadN, input.targets);
+  // A ratio that falls steeply between the targets can ask the spring to push less at rider sag than at static sag.
+  if (!(required > 0)) {
+    throw new EngineInputError(
+      'leverageRatio',
+      'With this leverage curve no spring gives both sag targets: the shock would have to push less at the rider sag than at the static sag. Check the curve and the targets.',
+    );
+  }
   const candidates = (input.springs ?? []).map((s) => evaluateRearSpring(model, s));
   return { rearLoadN, bikeLoadN, requiredRate: rateInUnits(required), candidates: rankCandidates(candidates, required) };
 }
@@ -87,7 +112,8 @@ function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: reado
  * `{ cases: [{ name, ...RearSpringResult }], coversAllCases, uncoveredBy }` where `coversAllCases` lists the
  * spring ids that are `ok` in every case (closest to the required rates first) and `uncoveredBy` maps each
  * other spring id to the name of the first case that breaks it (empty when every spring covers every case).
- * Throws RangeError when neither `loads` nor `cases` is given.
+ * Throws RangeError when neither `loads` nor `cases` is given, and EngineInputError (on `loads`, `cases.i.loads`
+ * or `leverageRatio`) when the loads put no weight on the rear wheel or no positive rate meets both targets.
  * @example
  * computeRearSpring({ wheelbaseMm: 1500, sprungMassKg: 95, loads: [{ massKg: 80, positionMm: 900 }],
  *   leverageRatio: 2.1, wheelTravelMm: 200, shockStrokeMm: 95, targets: { staticSagMm: 25, riderSagMm: 66 },

@@ -49,4 +49,9 @@ describe('load split between the axles (statics of a beam on two supports)', () 
     expect(split.frontN + split.rearN).toBeCloseTo(split.totalN, 9);
     expect(split.totalN).toBeCloseTo(g * 155, 9);
   });
+
+  it('a load exactly on the rear axle puts exactly nothing on the front, and one exactly on the front axle nothing on the rear (moments about each axle)', () => {
+    expect(loadSplit(1500, [{ massKg: 80, positionMm: 1500 }]).frontN).toBe(0);
+    expect(loadSplit(1500, [{ massKg: 80, positionMm: 0 }]).rearN).toBe(0);
+  });
 });

@@ -5,7 +5,7 @@ import type { Load } from './types';
 export interface LoadSplit {
   /** W_r = g·Σ m·x / L; more than the total weight when a load sits behind the rear axle. */
   rearN: number;
-  /** W_f = g·Σ m − W_r; negative when a load behind the rear axle lifts the front. */
+  /** W_f = g·Σ m·(L − x) / L; negative when a load behind the rear axle lifts the front. */
   frontN: number;
   totalN: number;
 }
@@ -19,13 +19,15 @@ export function loadSplit(wheelbaseMm: number, loads: readonly Load[]): LoadSpli
   if (!(wheelbaseMm > 0)) throw new RangeError('Wheelbase must be positive');
   let mass = 0;
   let moment = 0;
+  let frontMoment = 0;
   for (const l of loads) {
     mass += l.massKg;
     moment += l.massKg * l.positionMm;
+    // Moments about the rear axle too, so a load exactly on it gives the front exactly 0, not a rounding residue.
+    frontMoment += l.massKg * (wheelbaseMm - l.positionMm);
   }
   const totalN = g * mass;
-  const rearN = (g * moment) / wheelbaseMm;
-  return { rearN, frontN: totalN - rearN, totalN };
+  return { rearN: (g * moment) / wheelbaseMm, frontN: (g * frontMoment) / wheelbaseMm, totalN };
 }
 
 /**

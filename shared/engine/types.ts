@@ -98,7 +98,7 @@ export interface RearSpringResult {
 }
 
 export interface ForkSpringResult {
-  /** Load the added masses put on the front wheel, W_f, N (negative when luggage overhangs the rear axle). */
+  /** Load the added masses put on the front wheel, W_f, N; always positive (loads that leave the front unloaded are refused). */
   frontLoadN: number;
   /** The bike's own sprung weight on the front, N. */
   bikeLoadN: number;
