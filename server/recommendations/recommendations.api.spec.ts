@@ -83,6 +83,18 @@ describe('recommendations', () => {
     expect(after.candidates.map((c) => c.verdict)).not.toEqual(before.candidates.map((c) => c.verdict));
   });
 
+  it('a leverage curve staff saved that no spring can meet is the shop\'s to fix: 409 with a plain reason, not a rider-load error', async () => {
+    const { http, staff, fitment } = await shop();
+    // Falling from 3.5 to 1.0 by 70 mm, the shock would have to push less at rider sag (55 mm) than at static sag (20 mm).
+    const steep = [{ wheelTravelMm: 0, ratio: 3.5 }, { wheelTravelMm: 70, ratio: 1 }, { wheelTravelMm: 200, ratio: 1 }];
+    await http.put(`/api/staff/fitments/${fitment.id}`).set(staff.auth).send(fitmentInput({ rearLeverageRatio: null, rearLeverageCurve: steep })).expect(200);
+    const res = await http.post('/api/recommendations').send({ fitmentId: fitment.id, ridingStyle: 'road', rider: { massKg: 90, gearKg: 8 } });
+    expect(res.status).toBe(409);
+    expect(res.body.code).toBe('conflict');
+    expect(res.body.message).toMatch(/shop needs to check/);
+    expect(res.body.fields).toBeUndefined();
+  });
+
   it('with load cases, fork and shock come in the cases shape and name the springs that cover every case', async () => {
     const { http, fitment } = await shop();
     const res = await http.post('/api/recommendations').send({

@@ -16,6 +16,7 @@ import { asEnteredCaseName } from '../../shared/catalogue';
 import {
   computeForkSpring,
   computeRearSpring,
+  EngineInputError,
   type ForkSpringInput,
   type Load,
   type LoadCase,
@@ -213,6 +214,10 @@ export async function recommend(dto: RecommendationRequestDto, cache: BikeCache)
       throw new Error('The engine answered fork and shock in different shapes');
     }
   } catch (e) {
+    // The bike's own figures (e.g. a leverage curve that cannot meet its sag targets) are for the shop to fix, not the rider.
+    if (e instanceof EngineInputError && !e.field.endsWith('loads')) {
+      throw new AppError('conflict', `This bike's suspension figures cannot give a recommendation yet; the shop needs to check them. ${e.message}`);
+    }
     // Field checks passed but the physics did not (e.g. a load that lifts a wheel off the ground).
     if (e instanceof RangeError) throw AppError.validation(e.message, { load: e.message });
     throw e;
