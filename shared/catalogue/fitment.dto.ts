@@ -224,11 +224,14 @@ export class SagInputDto {
 
 /** Names used inside the CSV's "a=1 | b=2" cells may not contain those separators. */
 const listItem = /^[^|=\r\n]+$/;
+// Names are trimmed before they are saved, so one of only spaces would be stored empty.
+const notBlank = /\S/;
 
 export class TorqueInputDto {
   @IsString({ message: 'Name the fastener.' })
   @Length(1, 80, { message: 'A fastener name has 1 to 80 characters.' })
   @Matches(listItem, { message: 'A fastener name may not contain | or =.' })
+  @Matches(notBlank, { message: 'Name the fastener.' })
   fastener!: string;
 
   @num('Torque')
@@ -243,10 +246,12 @@ export class TorqueInputDto {
 export class FitmentInputDto {
   @IsString({ message: 'Enter the make.' })
   @Length(1, 60, { message: 'A make has 1 to 60 characters.' })
+  @Matches(notBlank, { message: 'Enter the make.' })
   make!: string;
 
   @IsString({ message: 'Enter the model.' })
   @Length(1, 60, { message: 'A model has 1 to 60 characters.' })
+  @Matches(notBlank, { message: 'Enter the model.' })
   model!: string;
 
   @IsOptional()
@@ -425,6 +430,7 @@ export class FitmentInputDto {
   @IsString({ each: true, message: 'Each tool is text.' })
   @Length(1, 80, { each: true, message: 'A tool name has 1 to 80 characters.' })
   @Matches(listItem, { each: true, message: 'A tool name may not contain | or =.' })
+  @Matches(notBlank, { each: true, message: 'A tool name has 1 to 80 characters.' })
   tools?: string[];
 
   @IsOptional()
