@@ -130,6 +130,9 @@ describe('the fitment form gets a message on each bad field, never a 500', () =>
     ['a lone surrogate half in the model', { model: 'Ridge\ud800line' }, 'model'],
     ['a make of only spaces', { make: '   ' }, 'make'],
     ['a tool of only spaces', { tools: ['  '] }, 'tools'],
+    ['sag targets given as a list', { sag: [] }, 'sag'],
+    ['the front sag given as a list', { sag: { ...fitmentInput().sag, front: [] } }, 'sag.front'],
+    ['the rear road sag given as a list', { sag: { ...fitmentInput().sag, rear: { ...fitmentInput().sag.rear, road: [] } } }, 'sag.rear.road'],
   ])('%s is a 400 on that field and nothing is saved', async (_name, override, field) => {
     const { http, staff } = await staffApp();
     const res = await http.post('/api/staff/fitments').set(staff.auth).send({ ...fitmentInput(), ...override });

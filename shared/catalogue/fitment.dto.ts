@@ -6,6 +6,7 @@ import {
   IsIn,
   IsInt,
   IsNumber,
+  IsObject,
   IsOptional,
   IsString,
   Length,
@@ -199,24 +200,29 @@ export class SagEndInputDto {
   @IsIn(['mm', 'pct'], { message: 'Unit is mm or pct.' })
   unit!: 'mm' | 'pct';
 
+  @IsObject({ message: 'Road sag is static and rider sag.' })
   @ValidateNested()
   @Type(() => SagPairInputDto)
   road!: SagPairInputDto;
 
+  @IsObject({ message: 'Adventure sag is static and rider sag.' })
   @ValidateNested()
   @Type(() => SagPairInputDto)
   adventure!: SagPairInputDto;
 
+  @IsObject({ message: 'Off-road sag is static and rider sag.' })
   @ValidateNested()
   @Type(() => SagPairInputDto)
   offRoad!: SagPairInputDto;
 }
 
 export class SagInputDto {
+  @IsObject({ message: 'Give the front sag targets.' })
   @ValidateNested()
   @Type(() => SagEndInputDto)
   front!: SagEndInputDto;
 
+  @IsObject({ message: 'Give the rear sag targets.' })
   @ValidateNested()
   @Type(() => SagEndInputDto)
   rear!: SagEndInputDto;
@@ -397,6 +403,8 @@ export class FitmentInputDto {
   @InRange(fitmentRanges.forkSpringFreeLengthMaxMm)
   forkSpringFreeLengthMaxMm!: number;
 
+  // ValidateNested alone lets a list through (it validates each item), so the shape is checked first.
+  @IsObject({ message: 'Give the sag targets.' })
   @ValidateNested()
   @Type(() => SagInputDto)
   sag!: SagInputDto;
