@@ -111,6 +111,10 @@ describe('bad bodies on the auth routes get 400 with a message per field, never 
     ['register with 1 MB strings', '/api/auth/register', { email: megabyte, password: megabyte, displayName: megabyte }, ['email', 'password', 'displayName']],
     ['reset request with a 1 MB string', '/api/auth/password-reset/request', { email: megabyte }, ['email']],
     ['reset confirm with nothing', '/api/auth/password-reset/confirm', {}, ['token', 'password']],
+    ['register with a lone surrogate half as e-mail', '/api/auth/register', { email: '\ud800', password: 'long-enough-pw', displayName: 'R' }, ['email']],
+    ['login with a lone surrogate half in the e-mail', '/api/auth/login', { email: 'a\udc00@b.test', password: 'x' }, ['email']],
+    ['register with a NUL character in the name', '/api/auth/register', { email: 'nul@b.test', password: 'long-enough-pw', displayName: 'R\u0000' }, ['displayName']],
+    ['register with a name of only spaces', '/api/auth/register', { email: 'blank@b.test', password: 'long-enough-pw', displayName: '   ' }, ['displayName']],
   ];
   it.each(cases)('%s', async (_name, path, body, fields) => {
     const res = await testApp().http.post(path).send(body as object);
@@ -168,6 +172,38 @@ describe('tokens and roles', () => {
     const staff = await userWithToken(config, 'staff');
     await http.patch(`/api/admin/users/${staff.user.id}`).set(admin.auth).send({ role: 'rider' }).expect(200);
     expect((await http.get('/api/auth/me').set(staff.auth)).status).toBe(401);
+  });
+
+  it('an admin cannot disable their own account by writing its id in capitals', async () => {
+    const { http, config } = testApp();
+    const admin = await userWithToken(config, 'admin');
+    const res = await http.patch(`/api/admin/users/${admin.user.id.toUpperCase()}`).set(admin.auth).send({ disabled: true });
+    expect(res.status).toBe(409);
+    expect((await http.get('/api/auth/me').set(admin.auth)).status).toBe(200);
+  });
+
+  it('an account id that is not a UUID is not found', async () => {
+    const { http, config } = testApp();
+    const admin = await userWithToken(config, 'admin');
+    for (const id of ['abc', '%00', `${admin.user.id}x`]) {
+      expect((await http.patch(`/api/admin/users/${id}`).set(admin.auth).send({ displayName: 'X' })).status).toBe(404);
+    }
+  });
+
+  it.each([
+    ['a null role', { role: null }, 'role'],
+    ['a null disabled flag', { disabled: null }, 'disabled'],
+    ['a null name', { displayName: null }, 'displayName'],
+    ['a name of only spaces', { displayName: '  ' }, 'displayName'],
+  ])('an admin edit with %s is a 400 on that field and the account is unchanged', async (_name, body, field) => {
+    const { http, config } = testApp();
+    const admin = await userWithToken(config, 'admin');
+    const staff = await userWithToken(config, 'staff');
+    const res = await http.patch(`/api/admin/users/${staff.user.id}`).set(admin.auth).send(body);
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields[field]).toBe('string');
+    const after = (await http.get('/api/admin/users').set(admin.auth)).body.items.find((u: { id: string }) => u.id === staff.user.id);
+    expect(after).toMatchObject({ role: 'staff', disabled: false, displayName: 'Test Rider' });
   });
 
   it('a state-changing request sent from another site is refused', async () => {

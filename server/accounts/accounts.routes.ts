@@ -10,7 +10,7 @@ import {
 import type { Config } from '../config';
 import { clearSessionCookie, requireRole, requireUser, setSessionCookie } from '../http/auth';
 import { limiter } from '../http/rate-limit';
-import { parseBody } from '../http/validate';
+import { parseBody, uuidParam } from '../http/validate';
 import * as accounts from './accounts.service';
 
 export function authRoutes(config: Config): Router {
@@ -79,8 +79,9 @@ export function adminUserRoutes(): Router {
   });
 
   r.patch('/:id', async (req, res) => {
+    const id = uuidParam(req.params.id, 'The account');
     const dto = await parseBody(UpdateUserDto, req.body);
-    res.json(await accounts.updateUserByAdmin(requireUser(req).id, String(req.params.id), dto));
+    res.json(await accounts.updateUserByAdmin(requireUser(req).id, id, dto));
   });
 
   return r;

@@ -157,12 +157,20 @@ describe('bad input to the calculations gets 400 with a message per field, never
     ['a sag check whose rider reading is longer than the extended one', '/sag-check', { end: 'rear', extendedMm: 600, staticMm: 600, riderMm: 610, targets: { staticSagMm: 25, riderSagMm: 66 }, leverageRatio: 2, adjusterPitchMm: 1 }, 'riderMm'],
     ['a geometry load above the force that closes the spring to solid', '/spring-geometry', { wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground', material: 'music-wire', freeLengthMm: 80, loadN: 1000 }, 'loadN'],
     ['a sag check of an unknown end', '/sag-check', { end: 'middle', extendedMm: 600, staticMm: 575, riderMm: 534, targets: { staticSagMm: 25, riderSagMm: 66 }, adjusterPitchMm: 1 }, 'end'],
+    ['a NUL character in a spring id', '/rear-spring', { ...rearBody(), springs: [{ id: 'R\u000058', rateNPerMm: 58, freeLengthMm: 229 }] }, 'springs.0.id'],
   ];
   it.each(cases)('%s', async (_name, path, body, field) => {
     const res = await testApp().http.post(`/api/calculations${path}`).send(body);
     expect(res.status).toBe(400);
     expect(res.body.code).toBe('validation');
     expect(typeof res.body.fields[field], JSON.stringify(res.body.fields)).toBe('string');
+  });
+
+  it('loads nested 10,000 lists deep are a 400 on that field, not a stack overflow', async () => {
+    const deep = '['.repeat(10_000) + ']'.repeat(10_000);
+    const res = await testApp().http.post('/api/calculations/rear-spring').set('Content-Type', 'application/json').send(JSON.stringify({ ...rearBody(), loads: [] }).replace('"loads":[]', `"loads":${deep}`));
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields.loads, JSON.stringify(res.body.fields)).toBe('string');
   });
 
   it('NaN and Infinity, which JSON cannot carry, arrive as a broken body and are refused plainly', async () => {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Page, StaffProductDto } from '../../shared/catalogue';
+import { AppDataSource } from '../db/data-source';
 import { fitmentInput, productInput, springInput } from '../test/catalogue-factories';
 import { testApp, userWithToken } from '../test/factories';
 
@@ -124,6 +125,39 @@ describe('staff keep the product catalogue', () => {
     expect((await http.delete(`/api/staff/products/${spring.id}`).set(staff.auth)).status).toBe(204);
     expect((await http.delete(`/api/staff/products/${adapter.id}`).set(staff.auth)).status).toBe(204);
     expect((await http.get(`/api/staff/products/${adapter.id}`).set(staff.auth)).status).toBe(404);
+  });
+});
+
+describe('bad product input gets a message on its field, never a 500', () => {
+  it.each([
+    ['a NUL character in the name', { name: 'Spring\u0000' }, 'name'],
+    ['a NUL character in the description', { description: 'A\u0000B' }, 'description'],
+    ['a name of only spaces', { name: '    ' }, 'name'],
+  ])('%s', async (_name, override, field) => {
+    const { http, staff } = await staffApp();
+    const res = await http.post('/api/staff/products').set(staff.auth).send(productInput(override));
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields[field], JSON.stringify(res.body.fields)).toBe('string');
+    expect((await http.get('/api/staff/products').set(staff.auth)).body.total).toBe(0);
+  });
+
+  it.each([
+    ['a null bin with a change', { change: 1, binLocation: null }, 'binLocation'],
+    ['a null bin with a count', { stockOnHand: 2, binLocation: null }, 'binLocation'],
+    ['a NUL character in the reason', { change: 1, reason: 'delivery\u0000' }, 'reason'],
+  ])('a stock update with %s is a 400 and the stock is unchanged', async (_name, body, field) => {
+    const { http, staff } = await staffApp();
+    const p = (await http.post('/api/staff/products').set(staff.auth).send(productInput())).body as StaffProductDto;
+    const res = await http.patch(`/api/staff/products/${p.id}/stock`).set(staff.auth).send(body);
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields[field]).toBe('string');
+    expect((await http.get(`/api/staff/products/${p.id}`).set(staff.auth)).body).toMatchObject({ stockOnHand: 3, binLocation: 'B-02' });
+  });
+
+  it('a NUL character in the list search is a 400 on it', async () => {
+    const res = await testApp().http.get('/api/products?q=a%00b');
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields.q).toBe('string');
   });
 });
 
@@ -280,6 +314,67 @@ describe('compatibility: the window, staff overrides and adapters', () => {
     const res = await http.put(`/api/staff/fitments/${fitment.id}/springs/${spring.id}/adapters`).set(staff.auth).send({ adapters: [{ productId: tool.id, quantity: 1 }] });
     expect(res.status).toBe(400);
     expect(res.body.fields['adapters.0.productId']).toBeDefined();
+  });
+});
+
+describe('compatibility writes that race or name one adapter twice answer plainly', () => {
+  async function springOnBike() {
+    const t = await staffApp();
+    const fitment = (await t.http.post('/api/staff/fitments').set(t.staff.auth).send(fitmentInput())).body;
+    const spring = (await t.http.post('/api/staff/products').set(t.staff.auth).send(springInput())).body;
+    const adapter = (await t.http.post('/api/staff/products').set(t.staff.auth).send(productInput())).body;
+    const adaptersPath = `/api/staff/fitments/${fitment.id}/springs/${spring.id}/adapters`;
+    return { ...t, fitment, spring, adapter, adaptersPath };
+  }
+
+  // Holds a deletion open in another connection while a request runs, then commits it.
+  async function whileDeleting<T>(sql: string, id: string, request: () => Promise<T>): Promise<T> {
+    const qr = AppDataSource.createQueryRunner();
+    await qr.connect();
+    await qr.startTransaction();
+    try {
+      await qr.query(sql, [id]);
+      const pending = request();
+      await new Promise((r) => setTimeout(r, 400));
+      await qr.commitTransaction();
+      return await pending;
+    } finally {
+      await qr.release();
+    }
+  }
+
+  it('one adapter named twice, once in capitals, is refused as a duplicate', async () => {
+    const { http, staff, adapter, adaptersPath } = await springOnBike();
+    const res = await http.put(adaptersPath).set(staff.auth).send({ adapters: [{ productId: adapter.id, quantity: 1 }, { productId: adapter.id.toUpperCase(), quantity: 2 }] });
+    expect(res.status).toBe(400);
+    expect(res.body.fields['adapters.1.productId']).toMatch(/once/);
+  });
+
+  it('two staff saving one spring’s adapters at once: both succeed and the last list stands whole', async () => {
+    const { http, staff, adapter, adaptersPath } = await springOnBike();
+    const save = (quantity: number) => http.put(adaptersPath).set(staff.auth).send({ adapters: [{ productId: adapter.id, quantity }] }).then((r) => r);
+    const results = await Promise.all([1, 2, 3, 4, 5, 6].map(save));
+    expect(results.map((r) => r.status)).toEqual([200, 200, 200, 200, 200, 200]);
+    const rows: { quantity: number }[] = await AppDataSource.query(`SELECT quantity FROM adapter_needs`);
+    expect(rows).toHaveLength(1);
+  });
+
+  it('an adapter deleted while staff save it on a spring is refused on its field, not a 500', async () => {
+    const { http, staff, adapter, adaptersPath } = await springOnBike();
+    const res = await whileDeleting(`DELETE FROM products WHERE id = $1`, adapter.id, () =>
+      http.put(adaptersPath).set(staff.auth).send({ adapters: [{ productId: adapter.id, quantity: 1 }] }).then((r) => r),
+    );
+    expect(res.status).toBe(400);
+    expect(res.body.fields['adapters.0.productId']).toBeDefined();
+  });
+
+  it('a fitment deleted while staff override a spring on it is a 404, not a 500', async () => {
+    const { http, staff, fitment, spring } = await springOnBike();
+    const res = await whileDeleting(`DELETE FROM fitments WHERE id = $1`, fitment.id, () =>
+      http.put(`/api/staff/fitments/${fitment.id}/springs/${spring.id}/override`).set(staff.auth).send({ fits: true }).then((r) => r),
+    );
+    expect(res.status).toBe(404);
+    expect((await AppDataSource.query(`SELECT 1 FROM spring_fit_overrides`)).length).toBe(0);
   });
 });
 

@@ -366,11 +366,13 @@ export async function reorderProductImages(actorId: string, id: string, dto: Ima
     await lockedProduct(em, id);
     const current = await images(em).find({ where: { productId: id }, order: { position: 'ASC' } });
     const ids = new Set(current.map((i) => i.id));
-    if (dto.imageIds.length !== ids.size || new Set(dto.imageIds).size !== ids.size || !dto.imageIds.every((x) => ids.has(x))) {
+    // A UUID in capitals names the same image.
+    const order = dto.imageIds.map((x) => x.toLowerCase());
+    if (order.length !== ids.size || new Set(order).size !== ids.size || !order.every((x) => ids.has(x))) {
       throw AppError.validation('Give every image of this product exactly once.', { imageIds: 'Give every image of this product exactly once.' });
     }
-    for (const [position, imageId] of dto.imageIds.entries()) await images(em).update({ id: imageId }, { position });
-    await recordAudit(em, { actorId, entityType: 'product', entityId: id, action: 'update', before: { imageOrder: current.map((i) => i.id) }, after: { imageOrder: dto.imageIds } });
+    for (const [position, imageId] of order.entries()) await images(em).update({ id: imageId }, { position });
+    await recordAudit(em, { actorId, entityType: 'product', entityId: id, action: 'update', before: { imageOrder: current.map((i) => i.id) }, after: { imageOrder: order } });
     return staffDto(id, em);
   });
   catalogueChanged();

@@ -102,8 +102,12 @@ function toSpringFit(r: FitRow, adapters: AdapterNeedDto[]): SpringFitDto {
   };
 }
 
-async function requireFitment(em: EntityManager, id: string): Promise<void> {
-  if (!(await em.getRepository(Fitment).existsBy({ id }))) throw AppError.notFound('The fitment');
+// Writers take a share lock, so a delete of the row waits for them or has already removed it: never a dangling reference.
+const shareLock = { mode: 'pessimistic_read' } as const;
+
+async function requireFitment(em: EntityManager, id: string, lock = false): Promise<void> {
+  const found = lock ? await em.getRepository(Fitment).findOne({ select: { id: true }, where: { id }, lock: shareLock }) : await em.getRepository(Fitment).existsBy({ id });
+  if (!found) throw AppError.notFound('The fitment');
 }
 
 /** Every spring of the catalogue against one fitment, for the staff compatibility table. */
@@ -121,15 +125,15 @@ async function springFit(em: EntityManager, fitmentId: string, productId: string
   return toSpringFit(row, (await adaptersFor(em, fitmentId, [productId])).get(productId) ?? []);
 }
 
-async function requireSpring(em: EntityManager, productId: string): Promise<void> {
-  const p = await em.getRepository(Product).findOneBy({ id: productId });
+async function requireSpring(em: EntityManager, productId: string, lock: 'pessimistic_read' | 'pessimistic_write' = 'pessimistic_read'): Promise<void> {
+  const p = await em.getRepository(Product).findOne({ where: { id: productId }, lock: { mode: lock } });
   if (!p || p.kind !== 'spring') throw AppError.notFound('The spring');
 }
 
 /** Staff force a spring to fit a fitment, or exclude it, whatever the window says. */
 export async function setOverride(actorId: string, fitmentId: string, productId: string, dto: CompatibilityOverrideDto): Promise<SpringFitDto> {
   const out = await AppDataSource.transaction(async (em) => {
-    await requireFitment(em, fitmentId);
+    await requireFitment(em, fitmentId, true);
     await requireSpring(em, productId);
     const before = await springFit(em, fitmentId, productId);
     await em.getRepository(SpringFitOverride).upsert({ fitmentId, productId, fits: dto.fits, note: (dto.note ?? '').trim() }, ['fitmentId', 'productId']);
@@ -143,7 +147,7 @@ export async function setOverride(actorId: string, fitmentId: string, productId:
 
 export async function clearOverride(actorId: string, fitmentId: string, productId: string): Promise<SpringFitDto> {
   const out = await AppDataSource.transaction(async (em) => {
-    await requireFitment(em, fitmentId);
+    await requireFitment(em, fitmentId, true);
     await requireSpring(em, productId);
     const before = await springFit(em, fitmentId, productId);
     await em.getRepository(SpringFitOverride).delete({ fitmentId, productId });
@@ -158,12 +162,15 @@ export async function clearOverride(actorId: string, fitmentId: string, productI
 /** Replaces the adapters a spring needs on a fitment. */
 export async function setAdapters(actorId: string, fitmentId: string, springId: string, dto: AdapterNeedsDto): Promise<SpringFitDto> {
   const out = await AppDataSource.transaction(async (em) => {
-    await requireFitment(em, fitmentId);
-    await requireSpring(em, springId);
+    await requireFitment(em, fitmentId, true);
+    // Two saves of one spring's list take turns, so the second replaces the first instead of colliding with it.
+    await requireSpring(em, springId, 'pessimistic_write');
     const fields: Record<string, string> = {};
     const seen = new Set<string>();
-    for (const [i, a] of dto.adapters.entries()) {
-      const p = await em.getRepository(Product).findOneBy({ id: a.productId });
+    // A UUID in capitals names the same adapter, so duplicates are found on the lower-case form.
+    const adapters = dto.adapters.map((a) => ({ productId: a.productId.toLowerCase(), quantity: a.quantity }));
+    for (const [i, a] of adapters.entries()) {
+      const p = await em.getRepository(Product).findOne({ where: { id: a.productId }, lock: shareLock });
       if (!p || p.kind !== 'adapter') fields[`adapters.${i}.productId`] = 'This is not an adapter kit of the catalogue.';
       if (seen.has(a.productId)) fields[`adapters.${i}.productId`] = 'Each adapter appears once; raise its quantity instead.';
       seen.add(a.productId);
@@ -172,7 +179,7 @@ export async function setAdapters(actorId: string, fitmentId: string, springId: 
     const before = await springFit(em, fitmentId, springId);
     const repo = em.getRepository(AdapterNeed);
     await repo.delete({ fitmentId, springId });
-    if (dto.adapters.length) await repo.insert(dto.adapters.map((a) => ({ fitmentId, springId, adapterId: a.productId, quantity: a.quantity })));
+    if (adapters.length) await repo.insert(adapters.map((a) => ({ fitmentId, springId, adapterId: a.productId, quantity: a.quantity })));
     const after = await springFit(em, fitmentId, springId);
     await recordAudit(em, { actorId, entityType: 'compatibility', entityId: fitmentId, action: 'update', before, after });
     return after;

@@ -105,6 +105,15 @@ describe('product images', () => {
     expect((await http.get(a!.url)).status).toBe(200);
   });
 
+  it('image ids written in capitals name the same images when reordering', async () => {
+    const { http, staff, product } = await withProduct();
+    await http.post(`/api/staff/products/${product.id}/images`).set(staff.auth).attach('image', png, 'a.png').expect(201);
+    const [a, b] = ((await http.post(`/api/staff/products/${product.id}/images`).set(staff.auth).attach('image', gif, 'b.gif').expect(201)).body as StaffProductDto).images;
+    const res = await http.put(`/api/staff/products/${product.id}/images/order`).set(staff.auth).send({ imageIds: [b!.id.toUpperCase(), a!.id.toUpperCase()] });
+    expect(res.status).toBe(200);
+    expect(res.body.images.map((i: { id: string }) => i.id)).toEqual([b!.id, a!.id]);
+  });
+
   it('a name that was never generated is not found, and never reaches the disk', async () => {
     const { http } = await withProduct();
     expect((await http.get('/files/product-images/..%2F..%2Fpackage.json')).status).toBe(404);

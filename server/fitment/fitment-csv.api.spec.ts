@@ -108,6 +108,40 @@ describe('the fitment table as CSV', () => {
     ]);
   });
 
+  it('a cell with a NUL character is a problem on its line and column, and nothing is written', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const [row] = rowsOf(await exportCsv());
+    const res = await send('import', csvOf([row!, { ...row!, id: '', variant: 'Two\u0000up' }]));
+    expect(res.status).toBe(400);
+    expect(res.body.details.problems).toEqual([{ line: 3, column: 'variant', message: expect.any(String) }]);
+    expect((await http.get('/api/fitments')).body.total).toBe(1);
+  });
+
+  it('a fitment saved by someone else while an import runs is checked against, not a 500', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    const first = (await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201)).body;
+    const [row] = rowsOf(await exportCsv());
+    // Another connection adds the same make, model, variant and year as the file's new row, and commits mid-import.
+    const qr = AppDataSource.createQueryRunner();
+    await qr.connect();
+    await qr.startTransaction();
+    try {
+      await qr.query(`CREATE TEMP TABLE copy ON COMMIT DROP AS SELECT * FROM fitments WHERE id = $1`, [first.id]);
+      await qr.query(`UPDATE copy SET id = gen_random_uuid(), variant = 'Two-up'`);
+      await qr.query(`INSERT INTO fitments SELECT * FROM copy`);
+      const pending = send('import', csvOf([{ ...row!, id: '', variant: 'Two-up' }])).then((r) => r);
+      await new Promise((r) => setTimeout(r, 400));
+      await qr.commitTransaction();
+      const res = await pending;
+      expect(res.status).toBe(400);
+      expect(res.body.details.problems).toMatchObject([{ line: 2, column: 'yearFrom' }]);
+    } finally {
+      await qr.release();
+    }
+    expect((await http.get('/api/fitments')).body.total).toBe(2);
+  });
+
   it('a header with an unknown or a missing column, broken quoting, or no CSV at all is refused', async () => {
     const { exportCsv, send } = await staffApp();
     const header = (await exportCsv()).trim();

@@ -13,7 +13,7 @@ import {
   type FitmentDto,
   type LoadStationKind,
 } from '../../shared/catalogue';
-import { flattenValidationErrors } from '../../shared/dto/validation';
+import { flattenValidationErrors, isStorableText, unstorableTextMessage } from '../../shared/dto/validation';
 import { recordAudit } from '../audit/audit.service';
 import { catalogueChanged } from '../catalogue/catalogue-cache';
 import { AppDataSource } from '../db/data-source';
@@ -157,6 +157,8 @@ function parseNumber(raw: string, column: string, problems: CsvProblemDto[], lin
 /** Turns one CSV row into a validated input, collecting every problem with its column. */
 function parseRow(cells: Record<string, string>, line: number, problems: CsvProblemDto[]): ParsedRow | undefined {
   const before = problems.length;
+  for (const [column, value] of Object.entries(cells)) if (!isStorableText(value)) problems.push({ line, column, message: unstorableTextMessage });
+  if (problems.length > before) return undefined;
   const num = (c: string) => parseNumber(cells[c] ?? '', c, problems, line);
   const id = (cells.id ?? '').trim();
   if (id && !uuidPattern.test(id)) problems.push({ line, column: 'id', message: 'The id is a UUID, or blank for a new fitment.' });
@@ -274,6 +276,8 @@ export async function importFitmentsCsv(actorId: string, text: string | undefine
   }
 
   const run = async (em: EntityManager): Promise<CsvImportReportDto> => {
+    // Other writers wait until the import commits, so its checks against the table still hold when it writes.
+    if (!opts.dryRun) await em.query(`LOCK TABLE fitments IN SHARE ROW EXCLUSIVE MODE`);
     const existing = await allFitments(em);
     const byId = new Map(existing.map((f) => [f.id, f]));
     const keyOwner = new Map(existing.map((f) => [keyOf(f.bike.make, f.bike.model, f.variant, f.yearFrom), f.id]));

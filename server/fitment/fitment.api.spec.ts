@@ -124,6 +124,37 @@ describe('the fitment form gets a message on each bad field, never a 500', () =>
     expect(typeof res.body.fields[field]).toBe('string');
   });
 
+  it.each([
+    ['a NUL character in the notes', { notes: 'Torque\u0000 again' }, 'notes'],
+    ['a NUL character in a fastener name', { torques: [{ fastener: 'Fork\u0000cap', torqueNm: 23 }] }, 'torques.0.fastener'],
+    ['a lone surrogate half in the model', { model: 'Ridge\ud800line' }, 'model'],
+    ['a make of only spaces', { make: '   ' }, 'make'],
+    ['a tool of only spaces', { tools: ['  '] }, 'tools'],
+    ['sag targets given as a list', { sag: [] }, 'sag'],
+    ['the front sag given as a list', { sag: { ...fitmentInput().sag, front: [] } }, 'sag.front'],
+    ['the rear road sag given as a list', { sag: { ...fitmentInput().sag, rear: { ...fitmentInput().sag.rear, road: [] } } }, 'sag.rear.road'],
+  ])('%s is a 400 on that field and nothing is saved', async (_name, override, field) => {
+    const { http, staff } = await staffApp();
+    const res = await http.post('/api/staff/fitments').set(staff.auth).send({ ...fitmentInput(), ...override });
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields[field], JSON.stringify(res.body.fields)).toBe('string');
+    expect((await http.get('/api/fitments')).body.total).toBe(0);
+  });
+
+  it('load stations nested 10,000 lists deep are a 400 on that field, not a stack overflow', async () => {
+    const { http, staff } = await staffApp();
+    const deep = '['.repeat(10_000) + ']'.repeat(10_000);
+    const res = await http.post('/api/staff/fitments').set(staff.auth).set('Content-Type', 'application/json').send(JSON.stringify(fitmentInput()).replace(/"loadStations":\[.*?\]/, `"loadStations":${deep}`));
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields.loadStations, JSON.stringify(res.body.fields)).toBe('string');
+  });
+
+  it.each(['q', 'make', 'model'])('a NUL character in the list query’s %s is a 400 on it', async (param) => {
+    const res = await testApp().http.get(`/api/fitments?${param}=a%00b`);
+    expect(res.status).toBe(400);
+    expect(typeof res.body.fields[param]).toBe('string');
+  });
+
   it('an id that is not a UUID is simply not found', async () => {
     expect((await testApp().http.get('/api/fitments/not-a-uuid')).status).toBe(404);
   });

@@ -29,6 +29,10 @@ function toAppError(err: unknown): AppError | undefined {
   if (e?.type === 'entity.parse.failed') return AppError.validation('The request body is not valid JSON.', { body: 'is not valid JSON' });
   if (e?.type === 'entity.too.large') return new AppError('too-large', 'The request body is too large.');
   if (e?.type === 'charset.unsupported' || e?.type === 'encoding.unsupported') return AppError.validation('Unsupported body encoding.', { body: 'unsupported encoding' });
+  // The router could not percent-decode a path segment: the address itself is malformed.
+  if (err instanceof URIError && e?.status === 400) return AppError.validation('The address is not valid.', { path: 'has a broken %-escape' });
+  // body-parser's other refusals of an unreadable body (e.g. compressed data that does not inflate) carry a 400.
+  if (e?.status === 400 && (err as { expose?: boolean }).expose === true) return AppError.validation('The request body could not be read.', { body: 'could not be read' });
   // A database that is away is a temporary outage, not a bug.
   if (e?.code === 'ECONNREFUSED' || e?.code === '57P01' || (err instanceof Error && /Connection terminated|timeout exceeded when trying to connect/.test(err.message))) {
     return new AppError('unavailable', 'The service is briefly unavailable. Please try again in a moment.');

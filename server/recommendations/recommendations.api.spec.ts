@@ -149,6 +149,8 @@ describe('loads the bike cannot take are refused with a clear message', () => {
     ['an unknown riding style', { fitmentId: '00000000-0000-4000-8000-000000000000', ridingStyle: 'track', rider: { massKg: 80, gearKg: 8 } }, 'ridingStyle'],
     ['a rider mass as text', { fitmentId: '00000000-0000-4000-8000-000000000000', ridingStyle: 'road', rider: { massKg: 'eighty', gearKg: 8 } }, 'rider.massKg'],
     ['luggage on the rider seat', { fitmentId: '00000000-0000-4000-8000-000000000000', ridingStyle: 'road', rider: { massKg: 80, gearKg: 8 }, luggage: [{ station: 'rider', massKg: 5 }] }, 'luggage.0.station'],
+    ['the rider given as a list', { fitmentId: '00000000-0000-4000-8000-000000000000', ridingStyle: 'road', rider: [] }, 'rider'],
+    ['a case’s rider given as a list', { fitmentId: '00000000-0000-4000-8000-000000000000', ridingStyle: 'road', rider: { massKg: 80, gearKg: 8 }, cases: [{ name: 'two-up', rider: [] }] }, 'cases.0.rider'],
   ])('a body with %s is a 400 on its field', async (_name, body, field) => {
     const res = await testApp().http.post('/api/recommendations').send(body);
     expect(res.status).toBe(400);

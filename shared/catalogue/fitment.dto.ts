@@ -6,6 +6,7 @@ import {
   IsIn,
   IsInt,
   IsNumber,
+  IsObject,
   IsOptional,
   IsString,
   Length,
@@ -199,24 +200,29 @@ export class SagEndInputDto {
   @IsIn(['mm', 'pct'], { message: 'Unit is mm or pct.' })
   unit!: 'mm' | 'pct';
 
+  @IsObject({ message: 'Road sag is static and rider sag.' })
   @ValidateNested()
   @Type(() => SagPairInputDto)
   road!: SagPairInputDto;
 
+  @IsObject({ message: 'Adventure sag is static and rider sag.' })
   @ValidateNested()
   @Type(() => SagPairInputDto)
   adventure!: SagPairInputDto;
 
+  @IsObject({ message: 'Off-road sag is static and rider sag.' })
   @ValidateNested()
   @Type(() => SagPairInputDto)
   offRoad!: SagPairInputDto;
 }
 
 export class SagInputDto {
+  @IsObject({ message: 'Give the front sag targets.' })
   @ValidateNested()
   @Type(() => SagEndInputDto)
   front!: SagEndInputDto;
 
+  @IsObject({ message: 'Give the rear sag targets.' })
   @ValidateNested()
   @Type(() => SagEndInputDto)
   rear!: SagEndInputDto;
@@ -224,11 +230,14 @@ export class SagInputDto {
 
 /** Names used inside the CSV's "a=1 | b=2" cells may not contain those separators. */
 const listItem = /^[^|=\r\n]+$/;
+// Names are trimmed before they are saved, so one of only spaces would be stored empty.
+const notBlank = /\S/;
 
 export class TorqueInputDto {
   @IsString({ message: 'Name the fastener.' })
   @Length(1, 80, { message: 'A fastener name has 1 to 80 characters.' })
   @Matches(listItem, { message: 'A fastener name may not contain | or =.' })
+  @Matches(notBlank, { message: 'Name the fastener.' })
   fastener!: string;
 
   @num('Torque')
@@ -243,10 +252,12 @@ export class TorqueInputDto {
 export class FitmentInputDto {
   @IsString({ message: 'Enter the make.' })
   @Length(1, 60, { message: 'A make has 1 to 60 characters.' })
+  @Matches(notBlank, { message: 'Enter the make.' })
   make!: string;
 
   @IsString({ message: 'Enter the model.' })
   @Length(1, 60, { message: 'A model has 1 to 60 characters.' })
+  @Matches(notBlank, { message: 'Enter the model.' })
   model!: string;
 
   @IsOptional()
@@ -392,6 +403,8 @@ export class FitmentInputDto {
   @InRange(fitmentRanges.forkSpringFreeLengthMaxMm)
   forkSpringFreeLengthMaxMm!: number;
 
+  // ValidateNested alone lets a list through (it validates each item), so the shape is checked first.
+  @IsObject({ message: 'Give the sag targets.' })
   @ValidateNested()
   @Type(() => SagInputDto)
   sag!: SagInputDto;
@@ -425,6 +438,7 @@ export class FitmentInputDto {
   @IsString({ each: true, message: 'Each tool is text.' })
   @Length(1, 80, { each: true, message: 'A tool name has 1 to 80 characters.' })
   @Matches(listItem, { each: true, message: 'A tool name may not contain | or =.' })
+  @Matches(notBlank, { each: true, message: 'A tool name has 1 to 80 characters.' })
   tools?: string[];
 
   @IsOptional()

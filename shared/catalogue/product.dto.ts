@@ -242,6 +242,7 @@ export class ProductInputDto {
 
   @IsString({ message: 'Enter a name.' })
   @Length(1, 120, { message: 'A name has 1 to 120 characters.' })
+  @Matches(/\S/, { message: 'Enter a name.' })
   name!: string;
 
   @isIn(productKinds, 'Kind')
@@ -331,7 +332,8 @@ export class StockUpdateDto {
   @MaxLength(200, { message: 'A reason has at most 200 characters.' })
   reason?: string;
 
-  @IsOptional()
+  // Left out keeps the bin; null is not a bin, so it is refused rather than reaching the service.
+  @ValidateIf((_o: StockUpdateDto, v: unknown) => v !== undefined)
   @IsString({ message: 'Bin location is text.' })
   @MaxLength(20, { message: 'A bin location has at most 20 characters.' })
   binLocation?: string;

@@ -4,6 +4,7 @@ import {
   ArrayMinSize,
   IsArray,
   IsNumber,
+  IsObject,
   IsOptional,
   IsString,
   IsUUID,
@@ -45,6 +46,8 @@ export class LuggageInputDto {
 
 /** Who rides and what the bike carries: the part a request and each of its load cases share. */
 export class LoadSetInputDto {
+  // ValidateNested alone lets a list through (it validates each item), so the shape is checked first.
+  @IsObject({ message: 'Give the rider and gear masses.' })
   @ValidateNested()
   @Type(() => RiderInputDto)
   rider!: RiderInputDto;

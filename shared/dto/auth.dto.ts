@@ -1,4 +1,4 @@
-import { IsEmail, IsIn, IsOptional, IsBoolean, IsString, Length, MaxLength, MinLength } from 'class-validator';
+import { IsEmail, IsIn, IsBoolean, IsString, Length, Matches, MaxLength, MinLength, ValidateIf } from 'class-validator';
 import { roles, type Role } from '../roles';
 
 import { passwordMaxLength, passwordMinLength } from '../password-rules';
@@ -25,6 +25,7 @@ export class RegisterDto {
 
   @IsString({ message: 'Enter your name.' })
   @Length(1, 80, { message: 'A name has 1 to 80 characters.' })
+  @Matches(/\S/, { message: 'Enter your name.' })
   displayName!: string;
 }
 
@@ -33,18 +34,22 @@ export class CreateUserDto extends RegisterDto {
   role!: Role;
 }
 
+// A partial update: a field left out stays as it is, but null is not a value any of these may take.
+const given = (_o: object, v: unknown) => v !== undefined;
+
 export class UpdateUserDto {
-  @IsOptional()
+  @ValidateIf(given)
   @IsIn(roles as unknown as string[], { message: `Role must be one of ${roles.join(', ')}.` })
   role?: Role;
 
-  @IsOptional()
+  @ValidateIf(given)
   @IsBoolean({ message: 'Disabled is true or false.' })
   disabled?: boolean;
 
-  @IsOptional()
+  @ValidateIf(given)
   @IsString({ message: 'Enter a name.' })
   @Length(1, 80, { message: 'A name has 1 to 80 characters.' })
+  @Matches(/\S/, { message: 'Enter a name.' })
   displayName?: string;
 }
 

@@ -28,3 +28,16 @@ export function flattenValidationErrors(errors: readonly ValidationError[]): Rec
   walk(errors, '');
   return out;
 }
+
+// NUL, or a surrogate half without its partner.
+const notStorable = /\u0000|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
+
+/**
+ * False for text PostgreSQL cannot store (a NUL character) or that is not Unicode (a lone surrogate half).
+ * @example isStorableText('Fork cap') // true; isStorableText('a\u0000b') // false
+ */
+export function isStorableText(s: string): boolean {
+  return !notStorable.test(s);
+}
+
+export const unstorableTextMessage = 'Contains a character that is not allowed in text.';
