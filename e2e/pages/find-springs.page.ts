@@ -1,4 +1,4 @@
-import type { Page } from '@playwright/test';
+import { expect, type Page } from '@playwright/test';
 
 export class FindSpringsPage {
   constructor(private readonly page: Page) {}
@@ -8,8 +8,14 @@ export class FindSpringsPage {
   }
 
   private async choose(label: string, option: string | RegExp) {
-    await this.page.getByLabel(label, { exact: true }).click();
-    await this.page.getByRole('option', { name: option }).first().click();
+    const box = this.page.getByLabel(label, { exact: true });
+    const choice = this.page.getByRole('option', { name: option }).first();
+    // Opening a list as it re-renders can miss; open it again until the choice shows, as a person would.
+    await expect(async () => {
+      if (!(await choice.isVisible())) await box.click();
+      await expect(choice).toBeVisible({ timeout: 2_000 });
+    }).toPass({ timeout: 15_000 });
+    await choice.click();
   }
 
   async chooseBike(make: string, model: string, years: string | RegExp) {
