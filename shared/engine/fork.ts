@@ -1,7 +1,6 @@
 import { g, rateInUnits } from '../units';
 import { buildCandidate, rankCandidates, runCases } from './candidates';
-import { EngineInputError } from './errors';
-import { loadSplit } from './statics';
+import { loadSplit, requireLoadOnEnd } from './statics';
 import type {
   ForkSpringCasesResult,
   ForkSpringInput,
@@ -68,15 +67,7 @@ export function evaluateForkSpring(model: ForkModel, spring: SpringCandidateInpu
 function forkForLoads(input: ForkSpringInput, loads: readonly Load[]): ForkSpringResult {
   const bikeLoadN = g * input.sprungMassKg;
   const frontLoadN = loadSplit(input.wheelbaseMm, loads).frontN;
-  // Rider sag can only exceed static sag when the loads press on the front; otherwise the required rate is 0 or negative.
-  if (!(frontLoadN > 0)) {
-    throw new EngineInputError(
-      'loads',
-      bikeLoadN + frontLoadN <= 0
-        ? 'The loads behind the rear axle lift the front wheel off the ground, so there is no fork sag to set.'
-        : 'The loads put no weight on the front wheel (they sit at or behind the rear axle), so no fork spring can give a rider sag deeper than the static sag.',
-    );
-  }
+  requireLoadOnEnd('front', bikeLoadN, frontLoadN);
   const model: ForkModel = {
     cosAngle: Math.cos((input.forkAngleDeg * Math.PI) / 180),
     springCount: input.springCount ?? 2,

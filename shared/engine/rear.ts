@@ -2,7 +2,7 @@ import { g, rateInUnits } from '../units';
 import { buildCandidate, rankCandidates, runCases } from './candidates';
 import { EngineInputError } from './errors';
 import { createLeverageCurve, leverageRatioAt, shockTravelAt, solveShockEquilibrium, type LeverageCurve } from './leverage';
-import { loadSplit } from './statics';
+import { loadSplit, requireLoadOnEnd } from './statics';
 import type {
   Load,
   PreloadRange,
@@ -73,15 +73,7 @@ export function evaluateRearSpring(model: RearModel, spring: SpringCandidateInpu
 function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: readonly Load[]): RearSpringResult {
   const bikeLoadN = g * input.sprungMassKg;
   const rearLoadN = loadSplit(input.wheelbaseMm, loads).rearN;
-  // Rider sag can only exceed static sag when the loads press on the rear; otherwise the required rate is 0 or negative.
-  if (!(rearLoadN > 0)) {
-    throw new EngineInputError(
-      'loads',
-      bikeLoadN + rearLoadN <= 0
-        ? 'The loads ahead of the front axle lift the rear wheel off the ground, so there is no rear sag to set.'
-        : 'The loads put no weight on the rear wheel (they sit at or ahead of the front axle), so no shock spring can give a rider sag deeper than the static sag.',
-    );
-  }
+  requireLoadOnEnd('rear', bikeLoadN, rearLoadN);
   const model: RearModel = {
     curve,
     bikeLoadN,

@@ -1,4 +1,5 @@
 import { g } from '../units';
+import { EngineInputError } from './errors';
 import type { Load } from './types';
 
 /** Added axle loads from a set of masses, N. */
@@ -36,4 +37,25 @@ export function loadSplit(wheelbaseMm: number, loads: readonly Load[]): LoadSpli
  */
 export function rearShare(wheelbaseMm: number, positionMm: number): number {
   return positionMm / wheelbaseMm;
+}
+
+const unloadedWording = {
+  front: { wheel: 'front', beyond: 'behind the rear axle', at: 'at or behind the rear axle', spring: 'fork spring', sag: 'fork sag' },
+  rear: { wheel: 'rear', beyond: 'ahead of the front axle', at: 'at or ahead of the front axle', spring: 'shock spring', sag: 'rear sag' },
+} as const;
+
+/**
+ * Refuses loads that add no weight to an end, or lift its wheel: rider sag deeper than static sag then needs
+ * a spring rate of 0 or less. Throws EngineInputError on `loads`.
+ * @example requireLoadOnEnd('rear', 931, 0) // throws: the loads put no weight on the rear wheel
+ */
+export function requireLoadOnEnd(end: 'front' | 'rear', bikeLoadN: number, addedLoadN: number): void {
+  if (addedLoadN > 0) return;
+  const w = unloadedWording[end];
+  throw new EngineInputError(
+    'loads',
+    bikeLoadN + addedLoadN <= 0
+      ? `The loads ${w.beyond} lift the ${w.wheel} wheel off the ground, so there is no ${w.sag} to set.`
+      : `The loads put no weight on the ${w.wheel} wheel (they sit ${w.at}), so no ${w.spring} can give a rider sag deeper than the static sag.`,
+  );
 }
