@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { ForkRecommendationDto, RecommendationDto, ShockRecommendationDto, StaffProductDto } from '../../shared/catalogue';
 import { isCasesRecommendation } from '../../shared/catalogue';
 import { computeRearSpring, loadSplit } from '../../shared/engine';
+import { AppDataSource } from '../db/data-source';
 import { fitmentInput, productInput, springInput } from '../test/catalogue-factories';
 import { testApp, userWithToken } from '../test/factories';
 
@@ -83,11 +84,15 @@ describe('recommendations', () => {
     expect(after.candidates.map((c) => c.verdict)).not.toEqual(before.candidates.map((c) => c.verdict));
   });
 
-  it('a leverage curve staff saved that no spring can meet is the shop\'s to fix: 409 with a plain reason, not a rider-load error', async () => {
+  it('a leverage curve no spring can meet is refused to staff on save, and one already stored is a 409 for the shop, not a rider-load error', async () => {
     const { http, staff, fitment } = await shop();
     // Falling from 3.5 to 1.0 by 70 mm, the shock would have to push less at rider sag (55 mm) than at static sag (20 mm).
     const steep = [{ wheelTravelMm: 0, ratio: 3.5 }, { wheelTravelMm: 70, ratio: 1 }, { wheelTravelMm: 200, ratio: 1 }];
-    await http.put(`/api/staff/fitments/${fitment.id}`).set(staff.auth).send(fitmentInput({ rearLeverageRatio: null, rearLeverageCurve: steep })).expect(200);
+    const save = await http.put(`/api/staff/fitments/${fitment.id}`).set(staff.auth).send(fitmentInput({ rearLeverageRatio: null, rearLeverageCurve: steep }));
+    expect(save.status).toBe(400);
+    expect(save.body.fields.rearLeverageCurve).toMatch(/falls too steeply/);
+    // As data stored before that check existed would be.
+    await AppDataSource.query('UPDATE fitments SET rear_leverage_ratio = NULL, rear_leverage_curve = $2 WHERE id = $1', [fitment.id, JSON.stringify(steep)]);
     const res = await http.post('/api/recommendations').send({ fitmentId: fitment.id, ridingStyle: 'road', rider: { massKg: 90, gearKg: 8 } });
     expect(res.status).toBe(409);
     expect(res.body.code).toBe('conflict');

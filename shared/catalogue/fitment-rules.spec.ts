@@ -27,6 +27,38 @@ const complete = (over: Partial<FitmentRuleFields> = {}): FitmentRuleFields => (
 });
 
 describe('fitment rules across fields', () => {
+  describe('a leverage curve no spring can meet', () => {
+    // The rider seat at 760 mm of a 1520 mm wheelbase, 90 kg sprung on the rear, rear sag 20 → 55 mm on 200 mm of travel.
+    const withCurve = (curve: { wheelTravelMm: number; ratio: number }[], over: Partial<FitmentRuleFields> = {}) =>
+      complete({
+        rearLeverageRatio: null,
+        rearLeverageCurve: curve,
+        rearSprungMassKg: 90,
+        wheelbaseMm: 1520,
+        loadStations: [{ station: 'rider', positionMm: 760 }],
+        sag: { rear: { unit: 'mm', road: { static: 20, rider: 55 } } },
+        ...over,
+      });
+
+    it('is named on the curve when it falls so steeply that the shock must push less at rider sag than at static sag', () => {
+      // LR(20) = 2.79, LR(55) = 1.54: 1.54 × (883 N + a 20 kg rider's 98 N) < 2.79 × 883 N.
+      const p = fitmentProblems(withCurve([{ wheelTravelMm: 0, ratio: 3.5 }, { wheelTravelMm: 70, ratio: 1 }, { wheelTravelMm: 200, ratio: 1 }]));
+      expect(p.rearLeverageCurve).toMatch(/road sag targets.*falls too steeply/);
+    });
+
+    it('lets a usual falling (progressive) curve through, and waits while the form lacks what it needs', () => {
+      expect(fitmentProblems(withCurve([{ wheelTravelMm: 0, ratio: 2.8 }, { wheelTravelMm: 200, ratio: 2.2 }])).rearLeverageCurve).toBeUndefined();
+      const steep = [{ wheelTravelMm: 0, ratio: 3.5 }, { wheelTravelMm: 70, ratio: 1 }];
+      expect(fitmentProblems(withCurve(steep, { rearSprungMassKg: null })).rearLeverageCurve).toBeUndefined();
+      expect(fitmentProblems(withCurve(steep, { loadStations: [{ station: 'rider', positionMm: null }] })).rearLeverageCurve).toBeUndefined();
+    });
+
+    it('in wet-mass mode reads the derived rear sprung mass', () => {
+      const wet = { massInput: 'wet' as const, rearSprungMassKg: null, wetMassKg: 200, frontStaticSharePct: 50, frontUnsprungMassKg: 15, rearUnsprungMassKg: 10 };
+      expect(fitmentProblems(withCurve([{ wheelTravelMm: 0, ratio: 3.5 }, { wheelTravelMm: 70, ratio: 1 }], wet)).rearLeverageCurve).toMatch(/falls too steeply/);
+    });
+  });
+
   it('a consistent fitment has no problems', () => {
     expect(fitmentProblems(complete())).toEqual({});
   });

@@ -1,4 +1,8 @@
 // Fitment rules across fields, free of class-validator so the staff form runs the server's own checks as staff type.
+import { createLeverageCurve } from '../engine/leverage';
+import { rearRequiredRate } from '../engine/rear';
+import { g } from '../units';
+import { riderRanges } from './ranges';
 
 type N = number | null | undefined;
 
@@ -25,9 +29,11 @@ export interface FitmentRuleFields {
   frontStaticSharePct?: N;
   frontUnsprungMassKg?: N;
   rearUnsprungMassKg?: N;
-  loadStations: readonly { station: string }[];
+  rearSprungMassKg?: N;
+  wheelbaseMm?: N;
+  loadStations: readonly { station: string; positionMm?: N }[];
   rearLeverageRatio?: N;
-  rearLeverageCurve?: readonly { wheelTravelMm: N }[] | null;
+  rearLeverageCurve?: readonly { wheelTravelMm: N; ratio?: N }[] | null;
   rearWheelTravelMm: N;
   shockStrokeMm: N;
   rearPreloadMinMm: N;
@@ -96,6 +102,8 @@ export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
   const sprung = f.massInput === 'wet' ? sprungFromWetOrNull(f) : null;
   if (sprung && sprung.frontSprungMassKg < 20) p.frontUnsprungMassKg = 'This leaves less than 20 kg sprung on the front.';
   if (sprung && sprung.rearSprungMassKg < 20) p.rearUnsprungMassKg = 'This leaves less than 20 kg sprung on the rear.';
+  const steep = steepCurveProblem(f, f.massInput === 'wet' ? sprung?.rearSprungMassKg : f.rearSprungMassKg);
+  if (steep && !p.rearLeverageCurve) p.rearLeverageCurve = steep;
   for (const end of ['front', 'rear'] as const) {
     const e = f.sag?.[end];
     if (!e) continue;
@@ -111,4 +119,37 @@ export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
     }
   }
   return p;
+}
+
+const styleNames = { road: 'road', adventure: 'adventure', offRoad: 'off-road' } as const;
+
+/**
+ * A leverage curve that falls so steeply between static and rider sag that the shock would have to push less at
+ * rider sag: no spring meets the targets. Checked with the lightest rider the API accepts on the rider seat;
+ * a heavier load only raises the rate asked, so if this passes no rider can be refused for the curve.
+ */
+function steepCurveProblem(f: FitmentRuleFields, rearSprungKg: N): string | undefined {
+  const pts = f.rearLeverageCurve;
+  const seat = f.loadStations.find((s) => s.station === 'rider')?.positionMm;
+  const rear = f.sag?.rear;
+  const travel = f.rearWheelTravelMm;
+  if (!pts || pts.length < 2 || !rear || !isNum(rearSprungKg) || !isNum(seat) || !(seat > 0) || !isNum(f.wheelbaseMm) || !isNum(travel)) return undefined;
+  const points: { wheelTravelMm: number; ratio: number }[] = [];
+  for (const pt of pts) {
+    const last = points[points.length - 1];
+    if (!isNum(pt.wheelTravelMm) || !isNum(pt.ratio) || !(pt.ratio > 0) || (last && !(pt.wheelTravelMm > last.wheelTravelMm))) return undefined;
+    points.push({ wheelTravelMm: pt.wheelTravelMm, ratio: pt.ratio });
+  }
+  const curve = createLeverageCurve(points);
+  const bikeN = g * rearSprungKg;
+  const totalN = bikeN + (g * riderRanges.massKg.min * seat) / f.wheelbaseMm;
+  for (const style of ['road', 'adventure', 'offRoad'] as const) {
+    const pair = rear[style];
+    if (!pair || !isNum(pair.static) || !isNum(pair.rider) || !(pair.static < pair.rider)) continue;
+    const mm = (v: number) => (rear.unit === 'pct' ? (v / 100) * travel : v);
+    if (!(rearRequiredRate(curve, bikeN, totalN, { staticSagMm: mm(pair.static), riderSagMm: mm(pair.rider) }) > 0)) {
+      return `With this curve no shock spring can give the ${styleNames[style]} sag targets: the ratio falls too steeply between static and rider sag, so the shock would have to push less at rider sag.`;
+    }
+  }
+  return undefined;
 }

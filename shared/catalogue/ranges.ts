@@ -63,6 +63,12 @@ export const springRanges = {
   solidLengthMm: { min: 5, max: 700, unit: 'mm' },
 } as const satisfies Record<string, FieldRange>;
 
+/** RiderInputDto: who sits on the rider seat. */
+export const riderRanges = {
+  massKg: { min: 20, max: 250, unit: 'kg' },
+  gearKg: { min: 0, max: 50, unit: 'kg' },
+} as const satisfies Record<string, FieldRange>;
+
 /**
  * The number with its unit as messages write it.
  * @example withUnit(40, '°') // "40 °"; withUnit(1950, '') // "1950"

@@ -16,6 +16,7 @@ import {
 import type { AdapterNeedDto } from './compatibility.dto';
 import { isIn, luggageStations, ridingStyles, type CurrencyCode, type LoadStationKind, type LuggageStation, type RateInUnitsDto, type RidingStyle } from './common';
 import type { FitmentSummaryDto } from './fitment.dto';
+import { riderRanges } from './ranges';
 import type { SpringCandidateResult, SpringVerdict } from '../engine/types';
 
 // ---------- request ----------
@@ -24,13 +25,13 @@ const num = (what: string) => IsNumber({ allowNaN: false, allowInfinity: false }
 
 export class RiderInputDto {
   @num('Rider mass')
-  @Min(20, { message: 'Rider mass is at least 20 kg.' })
-  @Max(250, { message: 'Rider mass is at most 250 kg.' })
+  @Min(riderRanges.massKg.min, { message: `Rider mass is at least ${riderRanges.massKg.min} kg.` })
+  @Max(riderRanges.massKg.max, { message: `Rider mass is at most ${riderRanges.massKg.max} kg.` })
   massKg!: number;
 
   @num('Gear mass')
-  @Min(0, { message: 'Gear mass is not negative.' })
-  @Max(50, { message: 'Gear mass is at most 50 kg.' })
+  @Min(riderRanges.gearKg.min, { message: 'Gear mass is not negative.' })
+  @Max(riderRanges.gearKg.max, { message: `Gear mass is at most ${riderRanges.gearKg.max} kg.` })
   gearKg!: number;
 }
 

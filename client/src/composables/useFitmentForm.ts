@@ -201,7 +201,7 @@ const sagPair = (p: SagPairDraft) => ({ static: p.static as number, rider: p.rid
 function ruleFieldsFromDraft(d: FitmentDraft): FitmentRuleFields {
   return {
     ...d,
-    loadStations: presentStations(d).map((station) => ({ station })),
+    loadStations: presentStations(d).map((station) => ({ station, positionMm: d.stations[station].positionMm })),
     rearLeverageRatio: d.leverageMode === 'ratio' ? d.rearLeverageRatio : null,
     rearLeverageCurve: d.leverageMode === 'curve' ? d.rearLeverageCurve : null,
   };
