@@ -18,6 +18,7 @@ fi
 cleanup() {
   set +e
   if [ -n "${server_pid:-}" ]; then kill -TERM "$server_pid" 2>/dev/null; wait "$server_pid" 2>/dev/null; fi
+  bash scripts/standins.sh stop
   if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop; fi
 }
 trap cleanup EXIT
@@ -27,6 +28,7 @@ bash docker-free-db/db.sh ensure-db "${DATABASE_URL##*/}" >/dev/null
 tsx_server server/db/migrate.ts
 tsx_server seeds/seed.ts --if-empty
 ensure_client_build
+bash scripts/standins.sh start
 
 cat <<MSG
 

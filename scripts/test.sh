@@ -17,7 +17,9 @@ if ! bash docker-free-db/db.sh status >/dev/null 2>&1; then
   bash docker-free-db/db.sh start
   started_db=1
 fi
-trap 'if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop >/dev/null || true; fi' EXIT
+export LOADLINE_RUN_DIR="$PWD/.run/test"
+trap 'bash scripts/standins.sh stop || true; if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop >/dev/null || true; fi' EXIT
+bash scripts/standins.sh start
 
 rm -rf test-results && mkdir -p test-results
 bash docker-free-db/db.sh ensure-db loadline_test >/dev/null
