@@ -1,6 +1,7 @@
 /// <reference types="vitest/config" />
 import { defineConfig } from 'vite';
 import vue from '@vitejs/plugin-vue';
+import { compression, defineAlgorithm } from 'vite-plugin-compression2';
 import { fileURLToPath } from 'node:url';
 
 const apiPort = process.env.PORT ?? '8080';
@@ -9,7 +10,17 @@ const testDatabaseUrl = process.env.TEST_DATABASE_URL ?? 'postgres://postgres@12
 
 export default defineConfig({
   root: 'client',
-  plugins: [vue()],
+  plugins: [
+    vue(),
+    // Scripts, styles and fonts are compressed once at build time; the server sends the smallest the browser accepts.
+    compression({
+      include: /\.(js|css|svg|json|ttf|eot|html)$/,
+      exclude: /index\.html$/,
+      threshold: 1024,
+      algorithms: [defineAlgorithm('brotliCompress'), defineAlgorithm('gzip', { level: 9 })],
+      deleteOriginalAssets: false,
+    }),
+  ],
   resolve: { alias: { '@shared': fileURLToPath(new URL('./shared', import.meta.url)) } },
   build: { outDir: '../dist/client', emptyOutDir: true, chunkSizeWarningLimit: 800 },
   server: {

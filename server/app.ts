@@ -3,6 +3,7 @@ import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import { existsSync, readFileSync } from 'node:fs';
 import { extname, join } from 'node:path';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
@@ -103,7 +104,15 @@ function serveClient(app: Express, config: Config): void {
     res.setHeader('Cache-Control', 'no-store');
     res.type('html').send(pageWithNonce(page, res));
   };
-  app.use('/assets', express.static(join(config.clientDist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
+  // Built assets are served precompressed (.br or .gz made by the build) when the browser accepts it.
+  app.use(
+    '/assets',
+    expressStaticGzip(join(config.clientDist, 'assets'), {
+      enableBrotli: true,
+      orderPreference: ['br', 'gz'],
+      serveStatic: { immutable: true, maxAge: '1y', fallthrough: false },
+    }),
+  );
   app.get('/index.html', sendPage);
   app.use(express.static(config.clientDist, { index: false, maxAge: '1h' }));
   // Client-side routes get the SPA; a path with an extension is a missing file and stays 404.

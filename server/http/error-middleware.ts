@@ -33,6 +33,8 @@ function toAppError(err: unknown): AppError | undefined {
   if (err instanceof URIError && e?.status === 400) return AppError.validation('The address is not valid.', { path: 'has a broken %-escape' });
   // body-parser's other refusals of an unreadable body (e.g. compressed data that does not inflate) carry a 400.
   if (e?.status === 400 && (err as { expose?: boolean }).expose === true) return AppError.validation('The request body could not be read.', { body: 'could not be read' });
+  // The static file server's refusal of a missing file (it wraps the file system's ENOENT in a 404).
+  if (e?.status === 404) return AppError.notFound('The file');
   // A database that is away is a temporary outage, not a bug.
   if (e?.code === 'ECONNREFUSED' || e?.code === '57P01' || (err instanceof Error && /Connection terminated|timeout exceeded when trying to connect/.test(err.message))) {
     return new AppError('unavailable', 'The service is briefly unavailable. Please try again in a moment.');
