@@ -1,6 +1,7 @@
 import type { Options } from 'express-rate-limit';
 import { describe, expect, it } from 'vitest';
 import { AppDataSource } from '../db/data-source';
+import { testApp } from '../test/factories';
 import { PostgresRateLimitStore, sweepExpiredCounters } from './postgres-rate-limit-store';
 
 function store(name: string, windowMs = 60_000): PostgresRateLimitStore {
@@ -67,5 +68,24 @@ describe('rate-limit counters in PostgreSQL', () => {
     expect(await sweepExpiredCounters()).toBe(1);
     const left: { limiter: string }[] = await AppDataSource.query('SELECT limiter FROM rate_limit_counters');
     expect(left.map((r) => r.limiter)).toEqual(['open']);
+  });
+});
+
+describe('limits while the database is away', () => {
+  it('the calculations go on answering, while sign-in says 503 rather than letting guesses through uncounted', async () => {
+    const { http } = testApp();
+    const body = {
+      wireDiameterMm: 10, outsideDiameterMm: 70, totalCoils: 10, endType: 'squared-ground', material: 'chrome-silicon',
+    };
+    await AppDataSource.destroy();
+    try {
+      const calc = await http.post('/api/calculations/spring-geometry').send(body);
+      expect(calc.status).toBe(200);
+      const signIn = await http.post('/api/auth/login').send({ email: 'rider@example.test', password: 'a-guess-of-some-length' });
+      expect(signIn.status).toBe(503);
+      expect(signIn.body.code).toBe('unavailable');
+    } finally {
+      await AppDataSource.initialize();
+    }
   });
 });

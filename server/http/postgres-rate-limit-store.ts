@@ -3,12 +3,14 @@ import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit';
 import type { Pool } from 'pg';
 import type { PostgresDriver } from 'typeorm/driver/postgres/PostgresDriver.js';
 import { AppDataSource } from '../db/data-source';
+import { AppError } from '../errors';
 
 /** Runs one statement; `name` makes it a prepared statement on each pooled connection. */
 export type Sql = (query: { name?: string; text: string; values: unknown[] }) => Promise<Record<string, unknown>[]>;
 
 /** The app's own pool, so counting shares the connections (and their limit) of every other query. */
 export const appSql: Sql = async (query) => {
+  if (!AppDataSource.isInitialized) throw new AppError('unavailable', 'The service is briefly unavailable. Please try again in a moment.');
   const pool = (AppDataSource.driver as PostgresDriver).master as Pool;
   return (await pool.query(query)).rows as Record<string, unknown>[];
 };
