@@ -1,4 +1,4 @@
-import { compareWithBaseline, startApp } from './lib';
+import { compareWithBaseline, migrateDatabase, startApp } from './lib';
 
 /** A 10-point leverage curve and 10 springs: a realistic, not a trivial, rear-spring request. */
 export const rearSpringBody = {
@@ -21,6 +21,7 @@ export const rearSpringBody = {
 export async function benchCalculations(): Promise<void> {
   // Riders vary: cycle through a few loads so the run is not one request repeated.
   const bodies = [70, 85, 100, 115].map((massKg) => ({ ...rearSpringBody, loads: [{ massKg, positionMm: 880 }, ...rearSpringBody.loads.slice(1)] }));
+  await migrateDatabase();
   const app = await startApp({ calcRateLimitPerMinute: 100_000_000, logLevel: 'silent' });
   try {
     const r = await compareWithBaseline('rear-spring', { url: `${app.url}/api/calculations/rear-spring`, bodies });

@@ -27,6 +27,13 @@ export async function prepareDatabase(): Promise<void> {
   process.env.JWT_SECRET ??= 'bench-secret-bench-secret-bench-secret-0';
 }
 
+/** Brings the scratch schema up to date (the rate-limit counters live there) without touching its data. */
+export async function migrateDatabase(): Promise<void> {
+  const { AppDataSource } = await import('../server/db/data-source');
+  if (!AppDataSource.isInitialized) await AppDataSource.initialize();
+  await AppDataSource.runMigrations({ transaction: 'each' });
+}
+
 /** Drops and rebuilds the scratch schema from the migrations and seeds the demo. */
 export async function freshDemoDatabase(): Promise<void> {
   const { AppDataSource } = await import('../server/db/data-source');

@@ -26,7 +26,8 @@ export function createApp(config: Config = getConfig()): Express {
   // API answers are computed per request and never revalidated, so hashing each one for an ETag is wasted work
   // (up to a tenth of a recommendation's cost); static files keep their own validators.
   app.set('etag', false);
-  app.set('trust proxy', 'loopback');
+  // Per-address limits read req.ip, which is the client's only when the proxies in front are trusted and no others.
+  app.set('trust proxy', config.trustProxy);
 
   app.use(
     helmet({

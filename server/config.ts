@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { isIP } from 'node:net';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -19,8 +20,19 @@ export interface Config {
   loginLimitPerIp: number;
   loginLimitPerAccount: number;
   calcRateLimitPerMinute: number;
+  /** Express's 'trust proxy': false, a hop count, or addresses, subnets and names such as loopback. */
+  trustProxy: boolean | number | string[];
+  imageStorage: 'disk' | 's3';
   uploadDir: string;
   uploadMaxBytes: number;
+  /** Empty for the provider's own endpoint. */
+  s3Endpoint: string;
+  s3Bucket: string;
+  s3Region: string;
+  /** Both empty: the SDK's usual credential chain (environment, instance role). */
+  s3AccessKeyId: string;
+  s3SecretAccessKey: string;
+  s3ForcePathStyle: boolean;
   csvImportMaxBytes: number;
   catalogueCacheTtlMs: number;
   clientDist: string;
@@ -86,6 +98,16 @@ export function parseConfig(env: Env = process.env): Config {
     else jwtSecret = demoSecret();
   }
 
+  const trustProxy = parseTrustProxy(env.TRUST_PROXY, problems);
+  const imageStorage = oneOf('IMAGE_STORAGE', 'disk', ['disk', 's3'] as const);
+  const s3Endpoint = env.S3_ENDPOINT ?? '';
+  if (s3Endpoint && !/^https?:\/\/[^/]+\/?$/.test(s3Endpoint)) problems.push(`S3_ENDPOINT must be a URL like https://objects.example.test, got '${s3Endpoint}'`);
+  const s3Bucket = env.S3_BUCKET ?? '';
+  if (imageStorage === 's3' && !/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/.test(s3Bucket)) problems.push(`S3_BUCKET must name a bucket (3–63 lower-case letters, digits, dots, hyphens) when IMAGE_STORAGE=s3, got '${s3Bucket}'`);
+  const s3AccessKeyId = env.S3_ACCESS_KEY_ID ?? '';
+  const s3SecretAccessKey = env.S3_SECRET_ACCESS_KEY ?? '';
+  if (!s3AccessKeyId !== !s3SecretAccessKey) problems.push('S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY are set together or not at all');
+
   const config: Config = {
     nodeEnv,
     host,
@@ -100,14 +122,47 @@ export function parseConfig(env: Env = process.env): Config {
     loginLimitPerIp: int('LOGIN_LIMIT_PER_IP', 30, 1, 1_000_000),
     loginLimitPerAccount: int('LOGIN_LIMIT_PER_ACCOUNT', 8, 1, 1_000_000),
     calcRateLimitPerMinute: int('CALC_RATE_LIMIT_PER_MINUTE', 600, 1, 100_000_000),
+    trustProxy,
+    imageStorage,
     uploadDir: resolve(projectRoot, env.UPLOAD_DIR || '.data/uploads'),
     uploadMaxBytes: int('UPLOAD_MAX_BYTES', 5 * 1024 * 1024, 1024, 100 * 1024 * 1024),
+    s3Endpoint: s3Endpoint.replace(/\/$/, ''),
+    s3Bucket,
+    s3Region: env.S3_REGION || 'us-east-1',
+    s3AccessKeyId,
+    s3SecretAccessKey,
+    s3ForcePathStyle: bool('S3_FORCE_PATH_STYLE', false),
     csvImportMaxBytes: int('CSV_IMPORT_MAX_BYTES', 20 * 1024 * 1024, 1024, 200 * 1024 * 1024),
     catalogueCacheTtlMs: int('CATALOGUE_CACHE_TTL_MS', 5000, 0, 3_600_000),
     clientDist: resolve(projectRoot, env.CLIENT_DIST || 'dist/client'),
   };
   if (problems.length) throw new ConfigError(problems);
   return Object.freeze(config);
+}
+
+const proxyNames = ['loopback', 'linklocal', 'uniquelocal'];
+
+// 'true' would trust any X-Forwarded-For, so every client could pick its own address and dodge per-address limits.
+function parseTrustProxy(raw: string | undefined, problems: string[]): Config['trustProxy'] {
+  if (raw === undefined || raw.trim() === '') return ['loopback'];
+  const v = raw.trim();
+  if (v === 'false') return false;
+  if (/^\d+$/.test(v)) return Number(v);
+  const parts = v.split(',').map((p) => p.trim());
+  const bad = parts.filter((p) => {
+    if (proxyNames.includes(p)) return false;
+    const [addr = '', bits, ...more] = p.split('/');
+    const family = isIP(addr);
+    if (!family || more.length) return true;
+    return bits !== undefined && !(/^\d+$/.test(bits) && Number(bits) <= (family === 4 ? 32 : 128));
+  });
+  if (bad.length) {
+    problems.push(
+      `TRUST_PROXY must be false, a number of proxy hops, or a comma-separated list of addresses, subnets (10.0.0.0/8) or ${proxyNames.join(', ')}; '${bad.join(', ')}' is not`,
+    );
+    return ['loopback'];
+  }
+  return parts;
 }
 
 // The demo keeps a random secret in a git-ignored file so sign-ins survive a restart.

@@ -1,4 +1,5 @@
 import 'reflect-metadata';
+import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { ConfigError, getConfig } from './config';
 import { AppDataSource } from './db/data-source';
@@ -30,7 +31,8 @@ for (let attempt = 1; ; attempt++) {
 
 const app = createApp(config);
 const server = app.listen(config.port, config.host, () => {
-  console.log(`Loadline is serving on http://${config.host}:${config.port}`);
+  // The port actually bound, so PORT=0 (any free port) can be found by whoever started the process.
+  console.log(`Loadline is serving on http://${config.host}:${(server.address() as AddressInfo).port}`);
 });
 
 let stopping = false;

@@ -15,8 +15,9 @@ import * as accounts from './accounts.service';
 
 export function authRoutes(config: Config): Router {
   const r = Router();
-  const perIp = limiter({ windowMs: 15 * 60_000, limit: config.loginLimitPerIp });
+  const perIp = limiter({ name: 'sign-in-address', windowMs: 15 * 60_000, limit: config.loginLimitPerIp });
   const perAccount = limiter({
+    name: 'sign-in-account',
     windowMs: 15 * 60_000,
     limit: config.loginLimitPerAccount,
     skipSuccessfulRequests: true,

@@ -13,7 +13,8 @@ import * as calculations from './calculations.service';
 /** The stateless calculation API: no sign-in, limited per address. */
 export function calculationRoutes(config: Config): Router {
   const r = Router();
-  r.use(limiter({ windowMs: 60_000, limit: config.calcRateLimitPerMinute }));
+  // Open while the database is away: the calculations themselves need none.
+  r.use(limiter({ name: 'calculations', windowMs: 60_000, limit: config.calcRateLimitPerMinute, failOpen: true }));
 
   r.post('/rear-spring', async (req, res) => {
     res.json(calculations.rearSpring(await parseBody(RearSpringRequestDto, req.body)));

@@ -14,7 +14,8 @@ import type { Config } from '../config';
 import { AppError } from '../errors';
 import { requireRole, requireUser } from '../http/auth';
 import { parseBody, parseQuery, uuidParam } from '../http/validate';
-import { imageNamePattern, imageStorageFor } from '../uploads/image-storage';
+import { imageNamePattern } from '../uploads/image-storage';
+import { imageStorageFor } from '../uploads/image-storage-for';
 import * as catalogue from './catalogue.service';
 import * as compatibility from './compatibility.service';
 import { springGeometry } from './spring-geometry';
@@ -50,7 +51,7 @@ function imageUpload(config: Config): RequestHandler {
 
 export function staffProductRoutes(config: Config): Router {
   const r = Router();
-  const storage = imageStorageFor(config.uploadDir);
+  const storage = imageStorageFor(config);
   r.use(requireRole('staff', 'admin'));
   const id = (v: unknown) => uuidParam(v, 'The product');
 
@@ -128,7 +129,7 @@ export function staffCatalogueRoutes(): Router {
 /** Serves product images by their generated names; a name never changes content, so it caches for a year. */
 export function productImageFiles(config: Config): Router {
   const r = Router();
-  const storage = imageStorageFor(config.uploadDir);
+  const storage = imageStorageFor(config);
   r.get('/:name', async (req, res, next) => {
     const name = String(req.params.name);
     const ext = imageNamePattern.exec(name)?.[1];

@@ -1,17 +1,26 @@
-import { mkdtempSync } from 'node:fs';
+import { existsSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StaffProductDto } from '../../shared/catalogue';
 import { springInput } from '../test/catalogue-factories';
+import type { Config } from '../config';
 import { testApp, userWithToken } from '../test/factories';
+import { startS3Standin } from '../test/s3-standin';
 
 // A real 1×1 PNG and a real 1×1 GIF: file-type recognises them by their magic bytes.
 const png = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64');
 const gif = Buffer.from('R0lGODlhAQABAIAAAP///wAAACH5BAEAAAAALAAAAAABAAEAAAICRAEAOw==', 'base64');
 
-async function withProduct(overrides = {}) {
-  const t = testApp({ uploadDir: mkdtempSync(join(tmpdir(), 'loadline-images-')), ...overrides });
+// Every test runs against each place images can live: the default local disk and an S3-compatible object store.
+const storages = [
+  { where: 'on local disk', start: async () => ({ config: {} as Partial<Config>, close: async () => {} }) },
+  { where: 'in an S3-compatible object store', start: startS3Standin },
+];
+let storageConfig: Partial<Config> = {};
+
+async function withProduct(overrides: Partial<Config> = {}) {
+  const t = testApp({ uploadDir: mkdtempSync(join(tmpdir(), 'loadline-images-')), ...storageConfig, ...overrides });
   const staff = await userWithToken(t.config, 'staff');
   const product = (await t.http.post('/api/staff/products').set(staff.auth).send(springInput())).body as StaffProductDto;
   return { ...t, staff, product };
@@ -24,7 +33,18 @@ const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer
   res.on('end', () => cb(null, Buffer.concat(chunks)));
 };
 
-describe('product images', () => {
+describe.each(storages)('product images $where', ({ where, start }) => {
+  let stop: () => Promise<void>;
+  beforeAll(async () => {
+    const storage = await start();
+    storageConfig = storage.config;
+    stop = storage.close;
+  });
+  afterAll(async () => {
+    storageConfig = {};
+    await stop();
+  });
+
   it('an uploaded image is served back byte-identical, with its type, a year of caching and nosniff', async () => {
     const { http, staff, product } = await withProduct();
     const res = await http.post(`/api/staff/products/${product.id}/images`).set(staff.auth).attach('image', png, { filename: 'spring.png', contentType: 'image/png' });
@@ -118,5 +138,11 @@ describe('product images', () => {
     const { http } = await withProduct();
     expect((await http.get('/files/product-images/..%2F..%2Fpackage.json')).status).toBe(404);
     expect((await http.get(`/files/product-images/${'a'.repeat(64)}.png`)).status).toBe(404);
+  });
+
+  it('the bytes are kept where the configuration says, and only there', async () => {
+    const { http, staff, product, config } = await withProduct();
+    await http.post(`/api/staff/products/${product.id}/images`).set(staff.auth).attach('image', png, 'a.png').expect(201);
+    expect(existsSync(join(config.uploadDir, 'product-images'))).toBe(where === 'on local disk');
   });
 });

@@ -9,7 +9,7 @@ import { createBikeCache, recommend } from './recommendations.service';
 export function recommendationRoutes(config: Config): Router {
   const r = Router();
   const cache = createBikeCache(config.catalogueCacheTtlMs);
-  r.use(limiter({ windowMs: 60_000, limit: config.calcRateLimitPerMinute }));
+  r.use(limiter({ name: 'recommendations', windowMs: 60_000, limit: config.calcRateLimitPerMinute }));
   r.post('/', async (req, res) => {
     res.json(await recommend(await parseBody(RecommendationRequestDto, req.body), cache));
   });

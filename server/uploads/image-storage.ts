@@ -50,12 +50,3 @@ export class LocalDiskImageStorage implements ImageStorage {
     await rm(this.pathOf(name), { force: true });
   }
 }
-
-const byRoot = new Map<string, ImageStorage>();
-
-/** One storage per upload folder, shared by the routes that write and the route that serves. */
-export function imageStorageFor(uploadDir: string): ImageStorage {
-  let s = byRoot.get(uploadDir);
-  if (!s) byRoot.set(uploadDir, (s = new LocalDiskImageStorage(uploadDir)));
-  return s;
-}
