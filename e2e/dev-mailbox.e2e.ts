@@ -13,6 +13,8 @@ test('a rider asks for a password reset; the admin finds the mail in the develop
   await riderPage.getByRole('button', { name: 'Create account' }).click();
   await expect(riderPage.getByTestId('signed-in-as')).toContainText('Vessa Thornquill');
   await riderPage.getByRole('button', { name: 'Sign out' }).click();
+  // Sign-out is a request; leaving the page before it answers would keep the rider signed in.
+  await expect(riderPage.getByRole('banner').getByRole('link', { name: 'Sign in' })).toBeVisible();
 
   await riderPage.goto('/forgot-password');
   await riderPage.getByLabel('E-mail').fill(email);
@@ -39,7 +41,7 @@ test('a rider asks for a password reset; the admin finds the mail in the develop
   await riderPage.getByLabel('New password', { exact: true }).fill('second-password-456');
   await riderPage.getByRole('button', { name: 'Set password' }).click();
   await expect(riderPage.getByText('Your password is changed.')).toBeVisible();
-  await riderPage.getByRole('link', { name: 'Sign in' }).first().click();
+  await riderPage.getByRole('main').getByRole('link', { name: 'Sign in' }).click();
   await riderPage.getByLabel('E-mail').fill(email);
   await riderPage.getByLabel('Password', { exact: true }).fill('second-password-456');
   await riderPage.getByRole('button', { name: 'Sign in' }).click();
