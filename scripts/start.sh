@@ -6,6 +6,12 @@ export LOADLINE_DB_PORT=${LOADLINE_DB_PORT:-54329}
 export LOADLINE_DB_CLUSTER=${LOADLINE_DB_CLUSTER:-demo}
 export DATABASE_URL=${DATABASE_URL:-postgres://postgres@127.0.0.1:$LOADLINE_DB_PORT/loadline}
 export PORT=${PORT:-8080}
+# The mail stand-in's ports, and the app pointed at them.
+export MAIL_STANDIN_SMTP_PORT=${MAIL_STANDIN_SMTP_PORT:-2525}
+export MAIL_STANDIN_HTTP_PORT=${MAIL_STANDIN_HTTP_PORT:-2526}
+export SMTP_HOST=${SMTP_HOST:-127.0.0.1}
+export SMTP_PORT=${SMTP_PORT:-$MAIL_STANDIN_SMTP_PORT}
+export MAIL_CAPTURE_URL=${MAIL_CAPTURE_URL:-http://127.0.0.1:$MAIL_STANDIN_HTTP_PORT}
 
 ensure_node_modules
 

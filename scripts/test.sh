@@ -8,6 +8,9 @@ export LOADLINE_DB_FAST=1
 export TEST_DATABASE_URL="postgres://postgres@127.0.0.1:$LOADLINE_DB_PORT/loadline_test"
 export E2E_DATABASE_URL="postgres://postgres@127.0.0.1:$LOADLINE_DB_PORT/loadline_e2e"
 export E2E_PORT=${E2E_PORT:-8090}
+# The tests' mail stand-in, on ports of its own so it can run beside npm start's.
+export MAIL_STANDIN_SMTP_PORT=${MAIL_STANDIN_SMTP_PORT:-2535}
+export MAIL_STANDIN_HTTP_PORT=${MAIL_STANDIN_HTTP_PORT:-2536}
 
 apt_install chromium
 ensure_node_modules

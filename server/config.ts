@@ -36,6 +36,16 @@ export interface Config {
   csvImportMaxBytes: number;
   catalogueCacheTtlMs: number;
   clientDist: string;
+  smtpHost: string;
+  smtpPort: number;
+  smtpSecure: boolean;
+  smtpUser: string;
+  smtpPassword: string;
+  mailFrom: string;
+  mailCaptureUrl: string;
+  mailWorker: boolean;
+  mailRetryLimit: number;
+  mailRetryDelaySeconds: number;
 }
 
 export class ConfigError extends Error {
@@ -107,6 +117,13 @@ export function parseConfig(env: Env = process.env): Config {
   const s3AccessKeyId = env.S3_ACCESS_KEY_ID ?? '';
   const s3SecretAccessKey = env.S3_SECRET_ACCESS_KEY ?? '';
   if (!s3AccessKeyId !== !s3SecretAccessKey) problems.push('S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY are set together or not at all');
+  const mailFrom = env.MAIL_FROM || 'Loadline shop <shop@loadline.test>';
+  if (!/^[^<>@\s]+@[^<>@\s]+\.[^<>@\s]+$|<[^<>@\s]+@[^<>@\s]+\.[^<>@\s]+>$/.test(mailFrom)) {
+    problems.push(`MAIL_FROM must be an address like shop@example.test or Name <shop@example.test>, got '${mailFrom}'`);
+  }
+  if (env.SMTP_USER && !env.SMTP_PASSWORD) problems.push('SMTP_PASSWORD is required when SMTP_USER is set');
+  const mailCaptureUrl = env.MAIL_CAPTURE_URL || 'http://127.0.0.1:2526';
+  if (!/^https?:\/\//.test(mailCaptureUrl)) problems.push(`MAIL_CAPTURE_URL must be an http:// URL, got '${mailCaptureUrl}'`);
 
   const config: Config = {
     nodeEnv,
@@ -135,6 +152,16 @@ export function parseConfig(env: Env = process.env): Config {
     csvImportMaxBytes: int('CSV_IMPORT_MAX_BYTES', 20 * 1024 * 1024, 1024, 200 * 1024 * 1024),
     catalogueCacheTtlMs: int('CATALOGUE_CACHE_TTL_MS', 5000, 0, 3_600_000),
     clientDist: resolve(projectRoot, env.CLIENT_DIST || 'dist/client'),
+    smtpHost: env.SMTP_HOST || '127.0.0.1',
+    smtpPort: int('SMTP_PORT', 2525, 1, 65535),
+    smtpSecure: bool('SMTP_SECURE', false),
+    smtpUser: env.SMTP_USER ?? '',
+    smtpPassword: env.SMTP_PASSWORD ?? '',
+    mailFrom,
+    mailCaptureUrl: mailCaptureUrl.replace(/\/+$/, ''),
+    mailWorker: bool('MAIL_WORKER', true),
+    mailRetryLimit: int('MAIL_RETRY_LIMIT', 10, 0, 100),
+    mailRetryDelaySeconds: int('MAIL_RETRY_DELAY_SECONDS', 30, 1, 3600),
   };
   if (problems.length) throw new ConfigError(problems);
   return Object.freeze(config);

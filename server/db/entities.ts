@@ -7,5 +7,6 @@ import { ProductImage } from '../catalogue/ProductImage.entity';
 import { SpringFitOverride } from '../catalogue/SpringFitOverride.entity';
 import { Bike } from '../fitment/Bike.entity';
 import { Fitment } from '../fitment/Fitment.entity';
+import { MailOutbox } from '../mail/MailOutbox.entity';
 
-export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry];
+export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox];
