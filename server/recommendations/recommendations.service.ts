@@ -113,12 +113,15 @@ function candidate(c: SpringCandidateResult): SpringCandidateDto {
     rateNPerMm: c.rateNPerMm,
     preloadNeededMm: c.preloadNeededMm,
     preloadMm: c.preloadMm,
+    preloadRangeMm: c.preloadRangeMm,
     installedLengthMm: c.installedLengthMm,
     staticSagMm: c.staticSagMm,
     riderSagMm: c.riderSagMm,
     verdict: c.verdict,
+    reason: c.reason,
   };
   if (c.adjusterTurns !== undefined) out.adjusterTurns = c.adjusterTurns;
+  if (c.spacerLengthMm !== undefined) out.spacerLengthMm = c.spacerLengthMm;
   if (c.coilBindMarginMm !== undefined) out.coilBindMarginMm = c.coilBindMarginMm;
   return out;
 }
