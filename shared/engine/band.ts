@@ -1,7 +1,7 @@
 import { rateInUnits } from '../units';
 import { leverageRatioAt, shockTravelAt, solveShockEquilibrium, type LeverageCurve } from './leverage';
 import type { PreloadRange, RateBand, SagTargets } from './types';
-import { SETTLE_TOLERANCE_MM } from './verdict';
+import { SETTLE_TOLERANCE_MM, staticSagWindow } from './verdict';
 
 /** A band of rates, N/mm (per spring once divided by the spring count). */
 export interface RateBandNPerMm {
@@ -22,19 +22,18 @@ export interface BandConditions {
  * Band for an end whose sag is linear in load: sag = A·F/K − B·p (a fork: A = cos θ, B = 1; a constant ratio LR at the
  * rear: A = LR², B = LR). With rider sag on target, p = (A·F_t/K − s_r)/B and static sag = s_r − A·W/K, so each
  * condition of `judgeSpring` is one bound on K: p ≤ max → K ≥ A·F_t/(s_r + B·max); p ≥ min → K ≤ A·F_t/(s_r + B·min);
- * static sag ≥ target − tol (and > 0) → K ≥ A·W/(s_r − max(0, target − tol)); static sag ≤ target + tol →
- * K ≤ A·W/(s_r − target − tol) when that denominator is positive. Undefined when the bounds leave nothing.
+ * static sag ≥ low → K ≥ A·W/(s_r − low); static sag < high → K < A·W/(s_r − high) when that denominator is positive,
+ * with low and high the ends of target ± tolerance from `staticSagWindow`. Undefined when the bounds leave nothing.
  * @example linearRateBand(1, 1, { bikeLoadN: 1000, totalLoadN: 1400, targets: { staticSagMm: 30, riderSagMm: 40 },
- *   preloadRangeMm: { min: 0, max: 20 }, staticSagToleranceMm: 3 }) // { min: 400/13, max: 35 }
+ *   preloadRangeMm: { min: 0, max: 20 }, staticSagToleranceMm: 3 }) // { min: 400/13.005, max: 35 }
  */
 export function linearRateBand(A: number, B: number, c: BandConditions): RateBandNPerMm | undefined {
   const sr = c.targets.riderSagMm;
   const W = c.totalLoadN - c.bikeLoadN;
-  const ts = c.targets.staticSagMm;
-  const tol = c.staticSagToleranceMm;
-  let min = Math.max((A * c.totalLoadN) / (sr + B * c.preloadRangeMm.max), (A * W) / (sr - Math.max(0, ts - tol)));
+  const { low, high } = staticSagWindow(c.targets, c.staticSagToleranceMm);
+  const min = Math.max((A * c.totalLoadN) / (sr + B * c.preloadRangeMm.max), (A * W) / (sr - low));
   let max = (A * c.totalLoadN) / (sr + B * c.preloadRangeMm.min);
-  if (sr - ts - tol > 0) max = Math.min(max, (A * W) / (sr - ts - tol));
+  if (sr - high > 0) max = Math.min(max, (A * W) / (sr - high));
   if (!(min <= max)) return undefined;
   return { min, max };
 }
@@ -71,8 +70,8 @@ function lastTrue(pred: (x: number) => boolean, lo: number, hi: number): number 
  * @example curveRateBand(createLeverageCurve([{ wheelTravelMm: 0, ratio: 2.5 }, { wheelTravelMm: 200, ratio: 1.9 }]), 200, conditions)
  */
 export function curveRateBand(curve: LeverageCurve, wheelTravelMm: number, c: BandConditions): RateBandNPerMm | undefined {
-  const { riderSagMm: sr, staticSagMm: ts } = c.targets;
-  const tol = c.staticSagToleranceMm;
+  const sr = c.targets.riderSagMm;
+  const { low, high } = staticSagWindow(c.targets, c.staticSagToleranceMm);
   const forceAtRider = leverageRatioAt(curve, sr) * c.totalLoadN;
   const yr = shockTravelAt(curve, sr);
   const preloadFor = (K: number): number => forceAtRider / K - yr;
@@ -80,10 +79,9 @@ export function curveRateBand(curve: LeverageCurve, wheelTravelMm: number, c: Ba
     solveShockEquilibrium(curve, { rateNPerMm: K, preloadMm: preloadFor(K), wheelForceN: F, wheelTravelMm });
   const lowOk = (K: number): boolean => {
     if (Math.abs(solve(K, c.totalLoadN) - sr) > SETTLE_TOLERANCE_MM) return false;
-    const s = solve(K, c.bikeLoadN);
-    return s > 0 && s >= ts - tol;
+    return solve(K, c.bikeLoadN) >= low;
   };
-  const highOk = (K: number): boolean => solve(K, c.bikeLoadN) <= ts + tol;
+  const highOk = (K: number): boolean => solve(K, c.bikeLoadN) < high;
   // p(K) is decreasing: the range's maximum gives the softest rate, its minimum the stiffest.
   const kSoft = forceAtRider / (c.preloadRangeMm.max + yr);
   const kStiff = forceAtRider / (c.preloadRangeMm.min + yr);

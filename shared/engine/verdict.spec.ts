@@ -22,6 +22,13 @@ describe('one spring rule', () => {
     expect(judgeSpring({ ...base, staticSagMm: 11.01 })).toEqual({ verdict: 'too-stiff', reason: 'static-sag-high' });
   });
 
+  it('judges static sag to the 0.01 mm it is shown with, so a figure read off the finder gets the same word back', () => {
+    expect(judgeSpring({ ...base, staticSagMm: 4.996 }).verdict).toBe('ok');
+    expect(judgeSpring({ ...base, staticSagMm: 11.004 }).verdict).toBe('ok');
+    expect(judgeSpring({ ...base, staticSagMm: 11.005 }).verdict).toBe('too-stiff');
+    expect(judgeSpring({ ...base, targets: { staticSagMm: 2, riderSagMm: 30 }, staticSagMm: 0.004 }).reason).toBe('topped-out');
+  });
+
   it('judges the preload range before the sags', () => {
     expect(judgeSpring({ ...base, preloadNeededMm: 21 })).toEqual({ verdict: 'too-soft', reason: 'preload-above-range' });
     expect(judgeSpring({ ...base, preloadNeededMm: 1, staticSagMm: 20 })).toEqual({ verdict: 'too-stiff', reason: 'preload-below-range' });
