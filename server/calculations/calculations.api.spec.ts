@@ -1,8 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { rearSpringExample } from '../../shared/engine/examples';
 import { testApp } from '../test/factories';
+import { expectShownDecimals } from '../test/shown-decimals';
 
 const g = 9.80665;
+/** Answers are rounded at the edge: a figure shown to `step` sits within half a step of the exact value. */
+const shownAs = (actual: number, exact: number, step: number) => expect(Math.abs(actual - exact)).toBeLessThanOrEqual(step / 2 + 1e-9);
 
 const rearBody = () => ({
   ...rearSpringExample(),
@@ -34,19 +37,20 @@ describe('POST /api/calculations/rear-spring', () => {
     const res = await testApp().http.post('/api/calculations/rear-spring').send(rearBody());
     expect(res.status).toBe(200);
     // Statics by hand: W_r = g·Σ m·x/L = 9.80665 × (80·900 + 12·1750)/1500 N.
-    expect(res.body.rearLoadN).toBeCloseTo((g * (80 * 900 + 12 * 1750)) / 1500, 6);
-    expect(res.body.bikeLoadN).toBeCloseTo(g * 95, 6);
+    const rearN = (g * (80 * 900 + 12 * 1750)) / 1500;
+    shownAs(res.body.rearLoadN, rearN, 0.1);
+    shownAs(res.body.bikeLoadN, g * 95, 0.1);
     // Constant ratio closed form: k = LR²·W_r/(s_r − s_s).
-    expect(res.body.requiredRate.nPerMm).toBeCloseTo((2.1 ** 2 * res.body.rearLoadN) / 41, 6);
-    expect(res.body.requiredRate.kgfPerMm).toBeCloseTo(res.body.requiredRate.nPerMm / g, 6);
+    shownAs(res.body.requiredRate.nPerMm, (2.1 ** 2 * rearN) / 41, 0.01);
+    shownAs(res.body.requiredRate.kgfPerMm, (2.1 ** 2 * rearN) / 41 / g, 0.001);
     const ids = res.body.candidates.map((c: { id: string }) => c.id);
     expect(ids[0]).toBe('R-65');
     const verdicts = Object.fromEntries(res.body.candidates.map((c: { id: string; verdict: string }) => [c.id, c.verdict]));
     expect(verdicts).toEqual({ 'R-65': 'ok', 'R-58': 'too-soft', 'R-140': 'too-stiff' });
     const ok = res.body.candidates[0];
     expect(ok.riderSagMm).toBeCloseTo(66, 1);
-    expect(ok.installedLengthMm).toBeCloseTo(229 - ok.preloadMm, 9);
-    expect(ok.coilBindMarginMm).toBeCloseTo(229 - 110 - (ok.preloadMm + 95), 9);
+    shownAs(ok.installedLengthMm, 229 - ok.preloadMm, 0.02);
+    shownAs(ok.coilBindMarginMm, 229 - 110 - (ok.preloadMm + 95), 0.02);
   });
 
   it('with load cases, answers each case and the springs that cover them all', async () => {
@@ -72,9 +76,9 @@ describe('POST /api/calculations/fork-spring', () => {
     const res = await testApp().http.post('/api/calculations/fork-spring').send(forkBody());
     expect(res.status).toBe(200);
     const frontN = g * 88 * (1 - 900 / 1500);
-    expect(res.body.frontLoadN).toBeCloseTo(frontN, 6);
+    shownAs(res.body.frontLoadN, frontN, 0.1);
     // k = cos θ · W_f / (n · (x_r − x_s)).
-    expect(res.body.requiredRate.nPerMm).toBeCloseTo((Math.cos((26 * Math.PI) / 180) * frontN) / (2 * 15), 6);
+    shownAs(res.body.requiredRate.nPerMm, (Math.cos((26 * Math.PI) / 180) * frontN) / (2 * 15), 0.01);
     expect(res.body.candidates).toHaveLength(2);
   });
 
@@ -100,9 +104,9 @@ describe('POST /api/calculations/spring-geometry', () => {
     });
     expect(res.status).toBe(200);
     expect(res.body.activeCoils).toBe(13);
-    expect(res.body.solidLengthMm).toBeCloseTo(35, 6);
+    shownAs(res.body.solidLengthMm, 35, 0.01);
     expect(Math.abs(res.body.rateNPerMm - 1.314) / 1.314).toBeLessThan(0.01);
-    expect(res.body.travelToSolidMm).toBeCloseTo(45, 6);
+    shownAs(res.body.travelToSolidMm, 45, 0.01);
   });
 });
 
@@ -124,6 +128,60 @@ describe('POST /api/calculations/sag-check', () => {
     expect(res.body.preloadChangeMm).toBeCloseTo(5, 9);
     expect(res.body.adjusterTurns).toBeCloseTo(5, 9);
     expect(typeof res.body.advice).toBe('string');
+  });
+});
+
+describe('the new figures through the API', () => {
+  it('gives the rate band beside the required rate, and each candidate’s reason and own preload range', async () => {
+    const res = await testApp().http.post('/api/calculations/rear-spring').send(rearBody());
+    const { rateBand, requiredRate, candidates, staticSagToleranceMm } = res.body;
+    expect(staticSagToleranceMm).toBe(3);
+    expect(rateBand.min.nPerMm).toBeLessThanOrEqual(requiredRate.nPerMm);
+    expect(rateBand.max.nPerMm).toBeGreaterThanOrEqual(requiredRate.nPerMm);
+    expect(candidates.find((c: { id: string }) => c.id === 'R-140')).toMatchObject({ verdict: 'too-stiff', reason: 'preload-below-range', preloadRangeMm: { min: 2, max: 20 } });
+  });
+
+  it('with an installed-length window, a 10 mm longer spring runs 10 mm more preload, and the band needs its free length', async () => {
+    const { preloadRangeMm: _r, ...rest } = rearBody();
+    const body = { ...rest, adjusterInstalledLengthMm: { min: 209, max: 227 }, springs: [{ id: 'A', rateNPerMm: 65, freeLengthMm: 229 }, { id: 'B', rateNPerMm: 65, freeLengthMm: 239 }] };
+    const res = await testApp().http.post('/api/calculations/rear-spring').send(body);
+    expect(res.status).toBe(200);
+    const range = (id: string) => res.body.candidates.find((c: { id: string }) => c.id === id).preloadRangeMm;
+    expect(range('B').min - range('A').min).toBe(10);
+    expect(res.body).not.toHaveProperty('rateBand');
+    const banded = await testApp().http.post('/api/calculations/rear-spring').send({ ...body, bandFreeLengthMm: 229 });
+    expect(banded.body.rateBand.min.nPerMm).toBeGreaterThan(0);
+  });
+
+  it('sag check: exact with both loads, approximate on a curve without them', async () => {
+    const body = { end: 'rear', extendedMm: 600, staticMm: 575, riderMm: 524, targets: { staticSagMm: 25, riderSagMm: 66 }, adjusterPitchMm: 1 };
+    const curve = [{ wheelTravelMm: 0, ratio: 2.5 }, { wheelTravelMm: 200, ratio: 1.9 }];
+    const approx = await testApp().http.post('/api/calculations/sag-check').send({ ...body, leverageRatio: curve });
+    expect(approx.body.approximate).toBe(true);
+    const exact = await testApp().http.post('/api/calculations/sag-check').send({ ...body, leverageRatio: curve, bikeLoadN: 930, riderLoadN: 600 });
+    expect(exact.body.approximate).toBe(false);
+    expect(exact.body.impliedRateNPerMm).toBeGreaterThan(0);
+  });
+});
+
+describe('numbers people can read', () => {
+  it('every answer of the four calculation endpoints has at most 0.01 mm, 0.01 N/mm (0.001 kgf/mm), 0.1 N and 0.01 turns', async () => {
+    const { http } = testApp();
+    const { loads: _l, ...rest } = rearBody();
+    const curve = [{ wheelTravelMm: 0, ratio: 2.37 }, { wheelTravelMm: 113, ratio: 2.11 }, { wheelTravelMm: 200, ratio: 1.93 }];
+    const answers = [
+      await http.post('/api/calculations/rear-spring').send(rearBody()),
+      await http.post('/api/calculations/rear-spring').send({ ...rearBody(), leverageRatio: curve, shockCount: 2 }),
+      await http.post('/api/calculations/rear-spring').send({ ...rest, cases: [{ name: 'solo', loads: [{ massKg: 83.3, positionMm: 911 }] }, { name: 'two-up', loads: [{ massKg: 83.3, positionMm: 911 }, { massKg: 61.7, positionMm: 1177 }] }] }),
+      await http.post('/api/calculations/fork-spring').send({ ...forkBody(), forkAngleDeg: 26.3, adjusterPitchMm: undefined, spacer: { stockSpacerMm: 101.3, stockFreeLengthMm: 303.3, stockPreloadMm: 11.1 } }),
+      await http.post('/api/calculations/spring-geometry').send({ wireDiameterMm: 2.53, outsideDiameterMm: 31.1, totalCoils: 14.3, endType: 'plain-ground', material: 'music-wire', freeLengthMm: 81.7, loadN: 21.3 }),
+      await http.post('/api/calculations/sag-check').send({ end: 'rear', extendedMm: 601.3, staticMm: { down: 572.1, up: 578.3 }, riderMm: 523.7, targets: { staticSagMm: 25.3, riderSagMm: 66.7 }, leverageRatio: curve, adjusterPitchMm: 1.3, bikeLoadN: 931.7, riderLoadN: 611.3 }),
+      await http.post('/api/calculations/sag-check').send({ end: 'front', extendedMm: 601.3, staticMm: 573.1, riderMm: 559.9, targets: { staticSagMm: 25.3, riderSagMm: 36.7 }, forkAngleDeg: 25.3, adjusterPitchMm: 1.3, riderLoadN: 311.3 }),
+    ];
+    for (const a of answers) {
+      expect(a.status).toBe(200);
+      expectShownDecimals(a.body);
+    }
   });
 });
 
@@ -157,6 +215,14 @@ describe('bad input to the calculations gets 400 with a message per field, never
     ['a sag check whose rider reading is longer than the extended one', '/sag-check', { end: 'rear', extendedMm: 600, staticMm: 600, riderMm: 610, targets: { staticSagMm: 25, riderSagMm: 66 }, leverageRatio: 2, adjusterPitchMm: 1 }, 'riderMm'],
     ['a geometry load above the force that closes the spring to solid', '/spring-geometry', { wireDiameterMm: 2.5, outsideDiameterMm: 31, totalCoils: 14, endType: 'plain-ground', material: 'music-wire', freeLengthMm: 80, loadN: 1000 }, 'loadN'],
     ['a sag check of an unknown end', '/sag-check', { end: 'middle', extendedMm: 600, staticMm: 575, riderMm: 534, targets: { staticSagMm: 25, riderSagMm: 66 }, adjusterPitchMm: 1 }, 'end'],
+    ['both a preload range and an installed-length window', '/rear-spring', { ...rearBody(), adjusterInstalledLengthMm: { min: 209, max: 227 } }, 'preloadRangeMm'],
+    ['neither a preload range nor an installed-length window', '/rear-spring', { ...rearBody(), preloadRangeMm: undefined }, 'preloadRangeMm'],
+    ['an installed-length window upside down', '/rear-spring', { ...rearBody(), preloadRangeMm: undefined, adjusterInstalledLengthMm: { min: 227, max: 209 } }, 'adjusterInstalledLengthMm.max'],
+    ['a band free length without a window', '/rear-spring', { ...rearBody(), bandFreeLengthMm: 229 }, 'bandFreeLengthMm'],
+    ['three shocks', '/rear-spring', { ...rearBody(), shockCount: 3 }, 'shockCount'],
+    ['a static-sag tolerance of 0', '/fork-spring', { ...forkBody(), staticSagToleranceMm: 0 }, 'staticSagToleranceMm'],
+    ['a spacer on a fork with an adjuster', '/fork-spring', { ...forkBody(), spacer: { stockSpacerMm: 100, stockFreeLengthMm: 300, stockPreloadMm: 10 } }, 'spacer'],
+    ['a shock count on a fork sag check', '/sag-check', { end: 'front', extendedMm: 600, staticMm: 575, riderMm: 560, targets: { staticSagMm: 25, riderSagMm: 40 }, forkAngleDeg: 25, shockCount: 2 }, 'shockCount'],
     ['a NUL character in a spring id', '/rear-spring', { ...rearBody(), springs: [{ id: 'R\u000058', rateNPerMm: 58, freeLengthMm: 229 }] }, 'springs.0.id'],
   ];
   it.each(cases)('%s', async (_name, path, body, field) => {

@@ -66,6 +66,9 @@ export class Fitment {
   @Column({ name: 'shock_stroke_mm', type: 'double precision' })
   shockStrokeMm!: number;
 
+  @Column({ name: 'shock_count', type: 'int', default: 1 })
+  shockCount!: number;
+
   @Column({ name: 'rear_preload_min_mm', type: 'double precision' })
   rearPreloadMinMm!: number;
 
@@ -102,6 +105,12 @@ export class Fitment {
   @Column({ name: 'fork_adjuster_pitch_mm', type: 'double precision', nullable: true })
   forkAdjusterPitchMm!: number | null;
 
+  @Column({ name: 'fork_stock_spacer_mm', type: 'double precision', nullable: true })
+  forkStockSpacerMm!: number | null;
+
+  @Column({ name: 'fork_stock_preload_mm', type: 'double precision' })
+  forkStockPreloadMm!: number;
+
   @Column({ name: 'fork_spring_inner_diameter_mm', type: 'double precision' })
   forkSpringInnerDiameterMm!: number;
 
@@ -113,6 +122,12 @@ export class Fitment {
 
   @Column({ type: 'jsonb' })
   sag!: { front: SagEndDto; rear: SagEndDto };
+
+  @Column({ name: 'front_static_sag_tolerance_mm', type: 'double precision', default: 3 })
+  frontStaticSagToleranceMm!: number;
+
+  @Column({ name: 'rear_static_sag_tolerance_mm', type: 'double precision', default: 3 })
+  rearStaticSagToleranceMm!: number;
 
   @Column({ name: 'stock_fork_rate_n_per_mm', type: 'double precision' })
   stockForkRateNPerMm!: number;

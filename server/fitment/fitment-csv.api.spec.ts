@@ -52,6 +52,37 @@ describe('the fitment table as CSV', () => {
     expect(n).toBe(2);
   });
 
+  it('the static-sag tolerances, shock count and stock fork spacer and preload travel as columns, and a file without them takes the defaults', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    const twin = fitmentInput({ shockCount: 2, rearStaticSagToleranceMm: 5, frontStaticSagToleranceMm: 4, forkAdjusterPitchMm: null, forkStockSpacerMm: 110, forkStockPreloadMm: 12 });
+    await http.post('/api/staff/fitments').set(staff.auth).send(twin).expect(201);
+    const [row] = rowsOf(await exportCsv());
+    expect(row).toMatchObject({ shockCount: '2', rearStaticSagToleranceMm: '5', frontStaticSagToleranceMm: '4', forkStockSpacerMm: '110', forkStockPreloadMm: '12' });
+    const { shockCount: _s, rearStaticSagToleranceMm: _r, frontStaticSagToleranceMm: _f, forkStockSpacerMm: _x, forkStockPreloadMm: _p, ...older } = row!;
+    const res = await send('import', csvOf([{ ...older, id: '', model: 'Older file' }]));
+    expect(res.status).toBe(200);
+    const list = (await http.get('/api/fitments').query({ model: 'Older file' })).body.items;
+    const created = (await http.get(`/api/fitments/${list[0].id}`)).body;
+    // The bottom of the fork preload range stands in for an unknown stock preload.
+    expect(created).toMatchObject({ shockCount: 1, rearStaticSagToleranceMm: 3, frontStaticSagToleranceMm: 3, forkStockSpacerMm: null, forkStockPreloadMm: twin.forkPreloadMinMm });
+  });
+
+  it('an imported update is audited with the same fitment shape before and after, as the form saves it', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const [row] = rowsOf(await exportCsv());
+    await send('import', csvOf([{ ...row!, wheelbaseMm: '1530' }, { ...row!, id: '', model: 'Ridgeline 900' }])).expect(200);
+    const entries: { before: Record<string, unknown> | null; after: Record<string, unknown> }[] = await AppDataSource.query(
+      `SELECT before, after FROM audit_log WHERE action = 'import' ORDER BY (before IS NULL)`,
+    );
+    const [update, create] = entries;
+    expect(Object.keys(update!.after).sort()).toEqual(Object.keys(update!.before!).sort());
+    expect(Object.keys(create!.after).sort()).toEqual(Object.keys(update!.before!).sort());
+    expect(update!.before).toMatchObject({ wheelbaseMm: 1520, make: 'Corvane' });
+    expect(update!.after).toMatchObject({ wheelbaseMm: 1530, make: 'Corvane', stockShockRate: expect.any(Object) });
+    expect(create!.after).toMatchObject({ model: 'Ridgeline 900' });
+  });
+
   it('a CSV with bad rows is refused whole, with every problem listed by line and column', async () => {
     const { http, staff, exportCsv, send } = await staffApp();
     await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);

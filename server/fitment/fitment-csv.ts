@@ -3,7 +3,7 @@ import { validateSync } from 'class-validator';
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
 import { randomUUID } from 'node:crypto';
-import type { EntityManager } from 'typeorm';
+import { In, type EntityManager } from 'typeorm';
 import {
   fitmentProblems,
   FitmentInputDto,
@@ -43,8 +43,12 @@ const numberColumns = [
   'rearAdjusterPitchMm', 'shockSpringInnerDiameterMm', 'shockSpringFreeLengthMinMm', 'shockSpringFreeLengthMaxMm', 'forkAngleDeg',
   'forkTravelMm', 'forkSpringCount', 'forkPreloadMinMm', 'forkPreloadMaxMm', 'forkAdjusterPitchMm', 'forkSpringInnerDiameterMm',
   'forkSpringFreeLengthMinMm', 'forkSpringFreeLengthMaxMm', 'stockForkRateNPerMm', 'stockForkFreeLengthMm', 'stockShockRateNPerMm',
-  'stockShockFreeLengthMm',
+  'stockShockFreeLengthMm', 'shockCount', 'forkStockSpacerMm', 'forkStockPreloadMm', 'frontStaticSagToleranceMm',
+  'rearStaticSagToleranceMm',
 ] as const;
+
+/** Columns added after the first files were written; a file without them imports with their defaults. */
+const optionalColumns: readonly string[] = ['shockCount', 'forkStockSpacerMm', 'forkStockPreloadMm', 'frontStaticSagToleranceMm', 'rearStaticSagToleranceMm'];
 
 /** Every column, in the order the export writes them; docs/catalogue-api.md describes each. */
 export const csvColumns: string[] = [
@@ -52,11 +56,12 @@ export const csvColumns: string[] = [
   'frontSprungMassKg', 'rearSprungMassKg', 'wetMassKg', 'frontStaticSharePct', 'frontUnsprungMassKg', 'rearUnsprungMassKg',
   'ratedLoadKg', 'wheelbaseMm',
   ...loadStationKinds.flatMap((s) => [`${stationPrefix[s]}PositionMm`, `${stationPrefix[s]}MaxKg`]),
-  'rearLeverage', 'rearWheelTravelMm', 'shockStrokeMm', 'rearPreloadMinMm', 'rearPreloadMaxMm', 'rearAdjusterPitchMm',
+  'rearLeverage', 'rearWheelTravelMm', 'shockStrokeMm', 'shockCount', 'rearPreloadMinMm', 'rearPreloadMaxMm', 'rearAdjusterPitchMm',
   'shockSpringInnerDiameterMm', 'shockSpringFreeLengthMinMm', 'shockSpringFreeLengthMaxMm',
   'forkAngleDeg', 'forkTravelMm', 'forkSpringCount', 'forkPreloadMinMm', 'forkPreloadMaxMm', 'forkAdjusterPitchMm',
-  'forkSpringInnerDiameterMm', 'forkSpringFreeLengthMinMm', 'forkSpringFreeLengthMaxMm',
+  'forkStockSpacerMm', 'forkStockPreloadMm', 'forkSpringInnerDiameterMm', 'forkSpringFreeLengthMinMm', 'forkSpringFreeLengthMaxMm',
   ...ends.flatMap((e) => [`${e}SagUnit`, ...styles.flatMap(([, S]) => [`${e}Sag${S}Static`, `${e}Sag${S}Rider`])]),
+  'frontStaticSagToleranceMm', 'rearStaticSagToleranceMm',
   'stockForkRateNPerMm', 'stockForkFreeLengthMm', 'stockShockRateNPerMm', 'stockShockFreeLengthMm',
   'torques', 'tools', 'notes',
 ];
@@ -261,7 +266,7 @@ export async function importFitmentsCsv(actorId: string, text: string | undefine
   if (!header) throw importRefused({ dryRun: opts.dryRun, rows: 0, created: 0, updated: 0, unchanged: 0, problems: [{ line: 1, column: '', message: 'The file is empty.' }] });
   const names = header.record.map((h) => h.trim());
   for (const n of names) if (!csvColumns.includes(n)) problems.push({ line: 1, column: n, message: 'Unknown column.' });
-  for (const c of csvColumns) if (!names.includes(c)) problems.push({ line: 1, column: c, message: 'This column is missing.' });
+  for (const c of csvColumns) if (!names.includes(c) && !optionalColumns.includes(c)) problems.push({ line: 1, column: c, message: 'This column is missing.' });
   if (problems.length) throw importRefused({ dryRun: opts.dryRun, rows: body.length, created: 0, updated: 0, unchanged: 0, problems });
 
   const parsed: ParsedRow[] = [];
@@ -333,10 +338,15 @@ export async function importFitmentsCsv(actorId: string, text: string | undefine
       const { id, bike: _b, createdAt: _c, updatedAt: _u, ...fields } = u.after;
       await em.getRepository(Fitment).update({ id }, { ...fields, updatedAt: new Date() });
     }
+    // The audit keeps the same DTO shape on both sides, read back as saved, as the form's saves do.
+    const written = await em
+      .getRepository(Fitment)
+      .find({ where: { id: In([...creates.map((f) => f.id), ...updates.map((u) => u.after.id)]) }, relations: { bike: true } });
+    const savedDto = new Map(written.map((f) => [f.id, toFitmentDto(f as FitmentWithBike)]));
     await recordAudit(
       em,
-      ...creates.map((f) => ({ actorId, entityType: 'fitment' as const, entityId: f.id, action: 'import' as const, before: null, after: stripBike(f) })),
-      ...updates.map((u) => ({ actorId, entityType: 'fitment' as const, entityId: u.after.id, action: 'import' as const, before: toFitmentDto(u.before), after: stripBike(u.after) })),
+      ...creates.map((f) => ({ actorId, entityType: 'fitment' as const, entityId: f.id, action: 'import' as const, before: null, after: savedDto.get(f.id)! })),
+      ...updates.map((u) => ({ actorId, entityType: 'fitment' as const, entityId: u.after.id, action: 'import' as const, before: toFitmentDto(u.before), after: savedDto.get(u.after.id)! })),
     );
     return report;
   };
@@ -350,11 +360,6 @@ export async function importFitmentsCsv(actorId: string, text: string | undefine
   catalogueChanged();
   return report;
 }
-
-const stripBike = (f: Fitment) => {
-  const { bike: _b, ...rest } = f;
-  return rest;
-};
 
 function importRefused(report: CsvImportReportDto): AppError {
   return new AppError('validation', `The CSV has ${report.problems.length} problem(s); nothing was imported.`, undefined, report);

@@ -5,6 +5,7 @@ import { computeRearSpring, loadSplit } from '../../shared/engine';
 import { AppDataSource } from '../db/data-source';
 import { fitmentInput, productInput, springInput } from '../test/catalogue-factories';
 import { testApp, userWithToken } from '../test/factories';
+import { expectShownDecimals } from '../test/shown-decimals';
 
 async function shop() {
   const t = testApp();
@@ -34,17 +35,20 @@ const single = (r: RecommendationDto) => {
 describe('recommendations', () => {
   it('answers fork and shock in the engine shape, with the catalogue springs that fit, their SKU, price, adapters and the stock spring', async () => {
     const { http, fitment, shocks, adapter } = await shop();
-    const res = await http.post('/api/recommendations').send({ fitmentId: fitment.id, ridingStyle: 'road', rider: { massKg: 80, gearKg: 8 }, luggage: [] });
+    // A 95 kg rider: the 95 N/mm spring leaves static sag within 20 ± 3 mm (the 85 would bind its coils).
+    const res = await http.post('/api/recommendations').send({ fitmentId: fitment.id, ridingStyle: 'road', rider: { massKg: 95, gearKg: 8 }, luggage: [] });
     expect(res.status).toBe(200);
     const r = res.body as RecommendationDto;
     const { fork, shock } = single(r);
     expect(r.fitment).toMatchObject({ id: fitment.id, make: 'Corvane', model: 'Ridgeline 800' });
-    expect(r.targets.shock).toEqual({ staticSagMm: 20, riderSagMm: 55 });
-    expect(r.loads).toEqual([{ station: 'rider', massKg: 88, positionMm: 760 }]);
+    expect(r.targets.shock).toEqual({ staticSagMm: 20, riderSagMm: 55, staticSagToleranceMm: 3 });
+    expect(r.loads).toEqual([{ station: 'rider', massKg: 103, positionMm: 760 }]);
     expect(shock.candidates).toHaveLength(4);
     expect(fork.candidates).toHaveLength(5);
     expect(shock.requiredRate.nPerMm).toBeGreaterThan(0);
-    expect(shock.requiredRate.kgfPerMm).toBeCloseTo(shock.requiredRate.nPerMm / 9.80665, 9);
+    // Rounded at the edge: 0.01 N/mm and 0.001 kgf/mm.
+    expect(Math.abs(shock.requiredRate.kgfPerMm - shock.requiredRate.nPerMm / 9.80665)).toBeLessThanOrEqual(0.0005 + 0.005 / 9.80665);
+    expect(shock.rateBand!.min.nPerMm).toBeLessThanOrEqual(shock.rateBand!.max.nPerMm);
     expect(shock.stock).toMatchObject({ id: 'stock', rateNPerMm: 85 });
     expect(fork.stock).toMatchObject({ id: 'stock', rateNPerMm: 8 });
     const withAdapter = shock.candidates.find((c) => c.id === shocks[1].id)!;
@@ -63,7 +67,8 @@ describe('recommendations', () => {
     const withTopCase = await ask([{ station: 'top-case', massKg: 10 }]);
     expect(withTopCase.fork.frontLoadN).toBeLessThan(without.fork.frontLoadN);
     // The top case at 1650 mm on a 1520 mm wheelbase: the front loses g·10·130/1520 = 8.39 N (moments about the rear axle).
-    expect(without.fork.frontLoadN - withTopCase.fork.frontLoadN).toBeCloseTo((9.80665 * 10 * 130) / 1520, 6);
+    // Each load is shown to 0.1 N, so their difference is good to 0.1 N.
+    expect(Math.abs(without.fork.frontLoadN - withTopCase.fork.frontLoadN - (9.80665 * 10 * 130) / 1520)).toBeLessThanOrEqual(0.1 + 1e-9);
     expect(withTopCase.shock.rearLoadN).toBeGreaterThan(without.shock.rearLoadN);
   });
 
@@ -74,13 +79,14 @@ describe('recommendations', () => {
     await http.put(`/api/staff/fitments/${fitment.id}`).set(staff.auth).send(fitmentInput({ rearLeverageRatio: 3.0 })).expect(200);
     const after = single((await http.post('/api/recommendations').send(body).expect(200)).body).shock;
     // With a constant ratio the required rate is LR²·W_r/(s_r − s_s), so it grows by (3.0/2.6)².
-    expect(after.requiredRate.nPerMm / before.requiredRate.nPerMm).toBeCloseTo((3.0 / 2.6) ** 2, 9);
+    expect(after.requiredRate.nPerMm / before.requiredRate.nPerMm).toBeCloseTo((3.0 / 2.6) ** 2, 3);
     const engine = computeRearSpring({
       wheelbaseMm: 1520, sprungMassKg: 90, loads: [{ massKg: 98, positionMm: 760 }], leverageRatio: 3.0, wheelTravelMm: 200, shockStrokeMm: 77,
-      targets: { staticSagMm: 20, riderSagMm: 55 }, preloadRangeMm: { min: 2, max: 22 }, adjusterPitchMm: 1.5,
+      // The adjuster window follows from the 190 mm stock spring and its 2–22 mm preload range.
+      targets: { staticSagMm: 20, riderSagMm: 55 }, adjusterInstalledLengthMm: { min: 190 - 22, max: 190 - 2 }, adjusterPitchMm: 1.5,
       springs: shocks.map((p: StaffProductDto) => ({ id: p.id, rateNPerMm: p.spring!.rateNPerMm, freeLengthMm: p.spring!.freeLengthMm, solidLengthMm: p.spring!.solidLengthMm })),
     });
-    expect(after.candidates.map((c) => [c.id, c.verdict, c.preloadMm])).toEqual(engine.candidates.map((c) => [c.id, c.verdict, c.preloadMm]));
+    expect(after.candidates.map((c) => [c.id, c.verdict, c.preloadMm])).toEqual(engine.candidates.map((c) => [c.id, c.verdict, Math.round(c.preloadMm * 100) / 100]));
     expect(after.candidates.map((c) => c.verdict)).not.toEqual(before.candidates.map((c) => c.verdict));
   });
 
@@ -120,8 +126,39 @@ describe('recommendations', () => {
     const { http, fitment } = await shop();
     const r = single((await http.post('/api/recommendations').send({ fitmentId: fitment.id, ridingStyle: 'road', rider: { massKg: 70, gearKg: 5 }, passengerKg: 55, luggage: [{ station: 'panniers', massKg: 20 }] }).expect(200)).body);
     const split = loadSplit(1520, [{ massKg: 75, positionMm: 760 }, { massKg: 55, positionMm: 1050 }, { massKg: 20, positionMm: 1350 }]);
-    expect(r.shock.rearLoadN).toBeCloseTo(split.rearN, 9);
-    expect(r.fork.frontLoadN).toBeCloseTo(split.frontN, 9);
+    expect(Math.abs(r.shock.rearLoadN - split.rearN)).toBeLessThanOrEqual(0.05);
+    expect(Math.abs(r.fork.frontLoadN - split.frontN)).toBeLessThanOrEqual(0.05);
+  });
+
+  it('judges a spring 10 mm longer than the stock one with 10 mm more preload, since the adjuster sets the installed length', async () => {
+    const { http, staff, fitment } = await shop();
+    const long = await (async () => (await http.post('/api/staff/products').set(staff.auth).send(springInput({ name: 'Shock long', sku: 'LL-SHOCK-LONG' }, { rateNPerMm: 85, freeLengthMm: 200, totalCoils: 8 })).expect(201)).body)();
+    const r = single((await http.post('/api/recommendations').send({ fitmentId: fitment.id, ridingStyle: 'road', rider: { massKg: 80, gearKg: 8 } }).expect(200)).body);
+    const stockLength = r.shock.candidates.find((c) => c.rateNPerMm === 85 && c.id !== long.id)!;
+    const longer = r.shock.candidates.find((c) => c.id === long.id)!;
+    expect(stockLength.preloadRangeMm).toEqual({ min: 2, max: 22 });
+    expect(longer.preloadRangeMm).toEqual({ min: 12, max: 32 });
+    expect(r.shock.stock.preloadRangeMm).toEqual({ min: 2, max: 22 });
+  });
+
+  it('rounds every figure of the answer at the edge, single load and cases alike', async () => {
+    const { http, fitment } = await shop();
+    const body = { fitmentId: fitment.id, ridingStyle: 'adventure', rider: { massKg: 83.3, gearKg: 7.7 }, luggage: [{ station: 'panniers', massKg: 11.3 }] };
+    expectShownDecimals((await http.post('/api/recommendations').send(body).expect(200)).body);
+    expectShownDecimals((await http.post('/api/recommendations').send({ ...body, cases: [{ name: 'two-up', rider: { massKg: 83.3, gearKg: 7.7 }, passengerKg: 61.3 }] }).expect(200)).body);
+  });
+
+  it('uses the fitment’s static-sag tolerance and number of shocks', async () => {
+    const { http, staff, fitment } = await shop();
+    const body = { fitmentId: fitment.id, ridingStyle: 'road', rider: { massKg: 80, gearKg: 8 } };
+    const one = single((await http.post('/api/recommendations').send(body).expect(200)).body);
+    await http.put(`/api/staff/fitments/${fitment.id}`).set(staff.auth).send(fitmentInput({ shockCount: 2, rearStaticSagToleranceMm: 5 })).expect(200);
+    const r = (await http.post('/api/recommendations').send(body).expect(200)).body as RecommendationDto;
+    const two = single(r);
+    expect(r.targets.shock.staticSagToleranceMm).toBe(5);
+    expect(two.shock.staticSagToleranceMm).toBe(5);
+    // Twin shocks: each spring needs half the rate (shown to 0.01 N/mm).
+    expect(Math.abs(two.shock.requiredRate.nPerMm - one.shock.requiredRate.nPerMm / 2)).toBeLessThanOrEqual(0.01);
   });
 });
 

@@ -2,13 +2,10 @@ import type {
   CasesRecommendationDto,
   FitmentDto,
   ForkRecommendationDto,
-  LoadCaseInputDto,
   RecommendationDto,
   RecommendationRequestDto,
   RecommendedSpringDto,
   ResolvedLoadDto,
-  RidingStyle,
-  SagEndDto,
   ShockRecommendationDto,
   SpringCandidateDto,
 } from '../../shared/catalogue';
@@ -17,11 +14,10 @@ import {
   computeForkSpring,
   computeRearSpring,
   EngineInputError,
-  type ForkSpringInput,
+  roundAnswer,
   type Load,
   type LoadCase,
-  type RearSpringInput,
-  type SagTargets,
+  type RearSpringResult,
   type SpringCandidateInput,
   type SpringCandidateResult,
 } from '../../shared/engine';
@@ -29,6 +25,8 @@ import { TtlCache } from '../catalogue/catalogue-cache';
 import { fittingSprings, type FittingSpring } from '../catalogue/compatibility.service';
 import { AppError } from '../errors';
 import { findFitment, toFitmentDto, toFitmentSummary } from '../fitment/fitment.service';
+import { engineInputs } from './engine-input';
+import { placeLoads } from './place-loads';
 
 interface BikeData {
   fitment: FitmentDto;
@@ -56,54 +54,6 @@ async function loadBike(fitmentId: string): Promise<BikeData> {
   };
 }
 
-const styleKey: Record<RidingStyle, keyof Omit<SagEndDto, 'unit'>> = { road: 'road', adventure: 'adventure', 'off-road': 'offRoad' };
-
-/** The fitment's sag targets for a riding style, in mm (a % target is taken of that end's travel). */
-export function sagTargetsMm(end: SagEndDto, style: RidingStyle, travelMm: number): SagTargets {
-  const pair = end[styleKey[style]];
-  const mm = (v: number) => (end.unit === 'pct' ? (v / 100) * travelMm : v);
-  return { staticSagMm: mm(pair.static), riderSagMm: mm(pair.rider) };
-}
-
-type LoadSet = Pick<LoadCaseInputDto, 'rider' | 'passengerKg' | 'luggage'>;
-
-/**
- * Places a rider, passenger and luggage on the bike's stations; refuses, per field, a station the bike
- * does not have, a load over a station's limit, and a total over the bike's rated load.
- */
-export function placeLoads(f: FitmentDto, set: LoadSet, prefix = ''): { loads: ResolvedLoadDto[]; problems: Record<string, string> } {
-  const problems: Record<string, string> = {};
-  const station = (s: string) => f.loadStations.find((x) => x.station === s);
-  const loads: ResolvedLoadDto[] = [];
-  const rider = station('rider')!;
-  const riderKg = set.rider.massKg + set.rider.gearKg;
-  if (riderKg > rider.maxLoadKg) problems[`${prefix}rider.massKg`] = `The rider seat takes at most ${rider.maxLoadKg} kg, rider and gear together; this is ${round(riderKg)} kg.`;
-  loads.push({ station: 'rider', massKg: riderKg, positionMm: rider.positionMm });
-  if (set.passengerKg) {
-    const seat = station('passenger');
-    if (!seat) problems[`${prefix}passengerKg`] = 'This bike has no passenger seat.';
-    else if (set.passengerKg > seat.maxLoadKg) problems[`${prefix}passengerKg`] = `The passenger seat takes at most ${seat.maxLoadKg} kg.`;
-    else loads.push({ station: 'passenger', massKg: set.passengerKg, positionMm: seat.positionMm });
-  }
-  const perStation = new Map<string, number>();
-  for (const [i, l] of (set.luggage ?? []).entries()) {
-    if (!l.massKg) continue;
-    const st = station(l.station);
-    if (!st) {
-      problems[`${prefix}luggage.${i}.station`] = `This bike has no ${l.station.replace('-', ' ')} mount.`;
-      continue;
-    }
-    const total = (perStation.get(l.station) ?? 0) + l.massKg;
-    perStation.set(l.station, total);
-    if (total > st.maxLoadKg) problems[`${prefix}luggage.${i}.massKg`] = `The ${l.station.replace('-', ' ')} takes at most ${st.maxLoadKg} kg; this makes ${round(total)} kg.`;
-    loads.push({ station: l.station, massKg: l.massKg, positionMm: st.positionMm });
-  }
-  const total = loads.reduce((s, l) => s + l.massKg, 0);
-  if (total > f.ratedLoadKg) problems[`${prefix}load`] = `The bike is rated for ${f.ratedLoadKg} kg of riders, gear and luggage; this is ${round(total)} kg.`;
-  return { loads, problems };
-}
-
-const round = (n: number) => Math.round(n * 10) / 10;
 const engineLoads = (loads: ResolvedLoadDto[]): Load[] => loads.map((l) => ({ massKg: l.massKg, positionMm: l.positionMm }));
 
 // Field by field rather than spread: this runs for every candidate of every request.
@@ -113,12 +63,15 @@ function candidate(c: SpringCandidateResult): SpringCandidateDto {
     rateNPerMm: c.rateNPerMm,
     preloadNeededMm: c.preloadNeededMm,
     preloadMm: c.preloadMm,
+    preloadRangeMm: c.preloadRangeMm,
     installedLengthMm: c.installedLengthMm,
     staticSagMm: c.staticSagMm,
     riderSagMm: c.riderSagMm,
     verdict: c.verdict,
+    reason: c.reason,
   };
   if (c.adjusterTurns !== undefined) out.adjusterTurns = c.adjusterTurns;
+  if (c.spacerLengthMm !== undefined) out.spacerLengthMm = c.spacerLengthMm;
   if (c.coilBindMarginMm !== undefined) out.coilBindMarginMm = c.coilBindMarginMm;
   return out;
 }
@@ -141,6 +94,19 @@ function split(bike: BikeData, candidates: SpringCandidateResult[]): { candidate
   return {
     candidates: candidates.filter((c) => c.id !== stockId).map((c) => enrich(bike, c)),
     stock: candidate(candidates.find((c) => c.id === stockId)!),
+  };
+}
+
+/** What fork and shock answers share, from the engine. */
+type EndResult = Pick<RearSpringResult, 'bikeLoadN' | 'requiredRate' | 'rateBand' | 'staticSagToleranceMm' | 'candidates'>;
+
+function endOf(bike: BikeData, c: EndResult) {
+  return {
+    bikeLoadN: c.bikeLoadN,
+    requiredRate: c.requiredRate,
+    ...(c.rateBand === undefined ? {} : { rateBand: c.rateBand }),
+    staticSagToleranceMm: c.staticSagToleranceMm,
+    ...split(bike, c.candidates),
   };
 }
 
@@ -171,45 +137,21 @@ export async function recommend(dto: RecommendationRequestDto, cache: BikeCache)
   ];
   if (Object.keys(problems).length) throw AppError.validation(Object.values(problems)[0]!, problems);
 
-  const forkTargets = sagTargetsMm(f.sag.front, dto.ridingStyle, f.forkTravelMm);
-  const shockTargets = sagTargetsMm(f.sag.rear, dto.ridingStyle, f.rearWheelTravelMm);
   const loadsOrCases = cases ? { cases } : { loads: engineLoads(main.loads) };
-  const forkInput: ForkSpringInput = {
-    wheelbaseMm: f.wheelbaseMm,
-    sprungMassKg: f.frontSprungMassKg,
-    ...loadsOrCases,
-    forkAngleDeg: f.forkAngleDeg,
-    springCount: f.forkSpringCount,
-    forkTravelMm: f.forkTravelMm,
-    targets: forkTargets,
-    preloadRangeMm: { min: f.forkPreloadMinMm, max: f.forkPreloadMaxMm },
-    ...(f.forkAdjusterPitchMm === null ? {} : { adjusterPitchMm: f.forkAdjusterPitchMm }),
-    springs: bike.fork,
-  };
-  const shockInput: RearSpringInput = {
-    wheelbaseMm: f.wheelbaseMm,
-    sprungMassKg: f.rearSprungMassKg,
-    ...loadsOrCases,
-    leverageRatio: f.rearLeverageCurve ?? f.rearLeverageRatio!,
-    wheelTravelMm: f.rearWheelTravelMm,
-    shockStrokeMm: f.shockStrokeMm,
-    targets: shockTargets,
-    preloadRangeMm: { min: f.rearPreloadMinMm, max: f.rearPreloadMaxMm },
-    adjusterPitchMm: f.rearAdjusterPitchMm,
-    springs: bike.shock,
-  };
+  const input = engineInputs(f, dto.ridingStyle, loadsOrCases, { fork: bike.fork, shock: bike.shock });
+  const endShape = (c: EndResult) => endOf(bike, c);
 
   let fork: RecommendationDto['fork'];
   let shock: RecommendationDto['shock'];
   try {
-    const fr = computeForkSpring(forkInput);
-    const rr = computeRearSpring(shockInput);
+    const fr = computeForkSpring(input.fork);
+    const rr = computeRearSpring(input.shock);
     if ('cases' in fr && 'cases' in rr) {
-      fork = casesShape(bike, fr, (c) => ({ frontLoadN: c.frontLoadN, bikeLoadN: c.bikeLoadN, requiredRate: c.requiredRate, ...split(bike, c.candidates) }));
-      shock = casesShape(bike, rr, (c) => ({ rearLoadN: c.rearLoadN, bikeLoadN: c.bikeLoadN, requiredRate: c.requiredRate, ...split(bike, c.candidates) }));
+      fork = casesShape(fr, (c) => ({ frontLoadN: c.frontLoadN, ...endShape(c) }));
+      shock = casesShape(rr, (c) => ({ rearLoadN: c.rearLoadN, ...endShape(c) }));
     } else if (!('cases' in fr) && !('cases' in rr)) {
-      fork = { frontLoadN: fr.frontLoadN, bikeLoadN: fr.bikeLoadN, requiredRate: fr.requiredRate, ...split(bike, fr.candidates) } satisfies ForkRecommendationDto;
-      shock = { rearLoadN: rr.rearLoadN, bikeLoadN: rr.bikeLoadN, requiredRate: rr.requiredRate, ...split(bike, rr.candidates) } satisfies ShockRecommendationDto;
+      fork = { frontLoadN: fr.frontLoadN, ...endShape(fr) } satisfies ForkRecommendationDto;
+      shock = { rearLoadN: rr.rearLoadN, ...endShape(rr) } satisfies ShockRecommendationDto;
     } else {
       throw new Error('The engine answered fork and shock in different shapes');
     }
@@ -223,18 +165,21 @@ export async function recommend(dto: RecommendationRequestDto, cache: BikeCache)
     throw e;
   }
 
-  return {
+  // Rounded once, at the edge, by the same rule as the calculation API.
+  return roundAnswer({
     fitment: bike.summary,
     ridingStyle: dto.ridingStyle,
-    targets: { fork: forkTargets, shock: shockTargets },
+    targets: {
+      fork: { ...input.fork.targets, staticSagToleranceMm: input.fork.staticSagToleranceMm ?? 3 },
+      shock: { ...input.shock.targets, staticSagToleranceMm: input.shock.staticSagToleranceMm ?? 3 },
+    },
     loads: main.loads,
     fork,
     shock,
-  };
+  });
 }
 
 function casesShape<C extends { name: string; candidates: SpringCandidateResult[] }, R>(
-  _bike: BikeData,
   result: { cases: C[]; coversAllCases: string[]; uncoveredBy: Record<string, string> },
   map: (c: C) => R,
 ): CasesRecommendationDto<R> {

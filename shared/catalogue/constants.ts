@@ -67,3 +67,6 @@ export const springFitToleranceMm = 0.5;
 
 export const auditEntityTypes = ['fitment', 'product', 'compatibility'] as const;
 export type AuditEntityType = (typeof auditEntityTypes)[number];
+
+/** How far a predicted static sag may sit from its target when a fitment names no tolerance, mm (common practice). */
+export const defaultStaticSagToleranceMm = 3;

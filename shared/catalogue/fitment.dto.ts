@@ -88,6 +88,8 @@ export interface FitmentDto extends FitmentSummaryDto {
   rearLeverageCurve: LeveragePointDto[] | null;
   rearWheelTravelMm: number;
   shockStrokeMm: number;
+  /** Shocks side by side (1, or 2 on a twin-shock bike); rates are per spring and the wheel sees their sum. */
+  shockCount: number;
   rearPreloadMinMm: number;
   rearPreloadMaxMm: number;
   rearAdjusterPitchMm: number;
@@ -101,10 +103,17 @@ export interface FitmentDto extends FitmentSummaryDto {
   forkPreloadMaxMm: number;
   /** null for forks without a preload adjuster. */
   forkAdjusterPitchMm: number | null;
+  /** Length of the stock preload spacer, mm; null when not known (it matters on forks without an adjuster). */
+  forkStockSpacerMm: number | null;
+  /** Preload of the stock fork spring as delivered, mm. */
+  forkStockPreloadMm: number;
   forkSpringInnerDiameterMm: number;
   forkSpringFreeLengthMinMm: number;
   forkSpringFreeLengthMaxMm: number;
   sag: { front: SagEndDto; rear: SagEndDto };
+  /** How far the predicted static sag may sit from its target, mm, on the targets' own axis (fork tube, rear wheel). */
+  frontStaticSagToleranceMm: number;
+  rearStaticSagToleranceMm: number;
   stockForkRateNPerMm: number;
   stockForkFreeLengthMm: number;
   stockShockRateNPerMm: number;
@@ -342,6 +351,11 @@ export class FitmentInputDto {
   @InRange(fitmentRanges.shockStrokeMm)
   shockStrokeMm!: number;
 
+  @IsOptional()
+  @IsInt({ message: 'Number of shocks is 1 or 2.' })
+  @InRange(fitmentRanges.shockCount)
+  shockCount?: number | null;
+
   @num('Rear preload minimum')
   @InRange(fitmentRanges.rearPreloadMinMm)
   rearPreloadMinMm!: number;
@@ -391,6 +405,17 @@ export class FitmentInputDto {
   @InRange(fitmentRanges.forkAdjusterPitchMm)
   forkAdjusterPitchMm?: number | null;
 
+  @IsOptional()
+  @num('Stock fork spacer')
+  @InRange(fitmentRanges.forkStockSpacerMm)
+  forkStockSpacerMm?: number | null;
+
+  /** The minimum of the fork preload range when left out. */
+  @IsOptional()
+  @num('Stock fork preload')
+  @InRange(fitmentRanges.forkStockPreloadMm)
+  forkStockPreloadMm?: number | null;
+
   @num('Fork spring inner diameter')
   @InRange(fitmentRanges.forkSpringInnerDiameterMm)
   forkSpringInnerDiameterMm!: number;
@@ -408,6 +433,18 @@ export class FitmentInputDto {
   @ValidateNested()
   @Type(() => SagInputDto)
   sag!: SagInputDto;
+
+  /** 3 mm when left out. */
+  @IsOptional()
+  @num('Front static sag tolerance')
+  @InRange(fitmentRanges.frontStaticSagToleranceMm)
+  frontStaticSagToleranceMm?: number | null;
+
+  /** 3 mm when left out. */
+  @IsOptional()
+  @num('Rear static sag tolerance')
+  @InRange(fitmentRanges.rearStaticSagToleranceMm)
+  rearStaticSagToleranceMm?: number | null;
 
   @num('Stock fork spring rate')
   @InRange(fitmentRanges.stockForkRateNPerMm)

@@ -24,6 +24,7 @@ export const fitmentRanges = {
   rearLeverageRatio: { min: 1, max: 5, unit: '' },
   rearWheelTravelMm: { min: 50, max: 350, unit: 'mm' },
   shockStrokeMm: { min: 20, max: 150, unit: 'mm' },
+  shockCount: { min: 1, max: 2, unit: 'shocks', integer: true },
   rearPreloadMinMm: { min: 0, max: 40, unit: 'mm' },
   rearPreloadMaxMm: { min: 0, max: 40, unit: 'mm' },
   rearAdjusterPitchMm: { min: 0.1, max: 5, unit: 'mm/turn' },
@@ -36,6 +37,8 @@ export const fitmentRanges = {
   forkPreloadMinMm: { min: 0, max: 40, unit: 'mm' },
   forkPreloadMaxMm: { min: 0, max: 40, unit: 'mm' },
   forkAdjusterPitchMm: { min: 0.1, max: 5, unit: 'mm/turn' },
+  forkStockSpacerMm: { min: 0, max: 300, unit: 'mm' },
+  forkStockPreloadMm: { min: 0, max: 40, unit: 'mm' },
   forkSpringInnerDiameterMm: { min: 10, max: 100, unit: 'mm' },
   forkSpringFreeLengthMinMm: { min: 50, max: 700, unit: 'mm' },
   forkSpringFreeLengthMaxMm: { min: 50, max: 700, unit: 'mm' },
@@ -49,6 +52,8 @@ export const fitmentRanges = {
   curveRatio: { min: 1, max: 5, unit: '' },
   staticSag: { min: 0, max: 200, unit: 'mm or %' },
   riderSag: { min: 1, max: 200, unit: 'mm or %' },
+  frontStaticSagToleranceMm: { min: 0.5, max: 20, unit: 'mm' },
+  rearStaticSagToleranceMm: { min: 0.5, max: 20, unit: 'mm' },
   torqueNm: { min: 0.5, max: 500, unit: 'N·m' },
 } as const satisfies Record<string, FieldRange>;
 

@@ -117,8 +117,12 @@ export interface RecommendedSpringDto extends SpringCandidateDto {
 
 interface EndCommon {
   bikeLoadN: number;
-  /** Per spring for the fork. */
+  /** Per spring (each of the fork pair, each of twin shocks): the rate that meets both sag targets exactly. */
   requiredRate: RateInUnitsDto;
+  /** Per spring: the rates some preload in the adjuster's range sets right for the stock spring's free length; absent when none does. */
+  rateBand?: { min: RateInUnitsDto; max: RateInUnitsDto };
+  /** How far static sag may sit from its target for a spring to be ok, mm. */
+  staticSagToleranceMm: number;
   /** Best first: ok ones closest to the required rate. */
   candidates: RecommendedSpringDto[];
   /** The bike's stock spring through the same engine, for comparison (id 'stock'). */
@@ -146,11 +150,17 @@ export interface ResolvedLoadDto {
   positionMm: number;
 }
 
+export interface EndTargetsDto {
+  staticSagMm: number;
+  riderSagMm: number;
+  staticSagToleranceMm: number;
+}
+
 export interface RecommendationDto {
   fitment: FitmentSummaryDto;
   ridingStyle: RidingStyle;
-  /** The sag targets used, mm (converted from % of travel where the fitment keeps them so). */
-  targets: { fork: { staticSagMm: number; riderSagMm: number }; shock: { staticSagMm: number; riderSagMm: number } };
+  /** The sag targets used, mm (converted from % of travel where the fitment keeps them so), with the static-sag tolerance. */
+  targets: { fork: EndTargetsDto; shock: EndTargetsDto };
   /** The top-level load as placed on the bike's stations. */
   loads: ResolvedLoadDto[];
   fork: ForkRecommendationDto | CasesRecommendationDto<ForkRecommendationDto>;

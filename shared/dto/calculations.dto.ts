@@ -18,7 +18,9 @@ import {
 } from 'class-validator';
 import { endCoils, SPRING_END_TYPES, SPRING_MATERIAL_KEYS } from '../engine/geometry';
 import type {
+  ForkSpacerInput,
   ForkSpringInput,
+  InstalledLengthWindow,
   LeverageRatioInput,
   Load,
   LoadCase,
@@ -260,6 +262,30 @@ export class PreloadRangeDto implements PreloadRange {
   max!: number;
 }
 
+export class InstalledLengthWindowDto implements InstalledLengthWindow {
+  @NumberField('Shortest installed length', { min: 0, exclusiveMin: true, max: 1000, unit: 'mm' })
+  min!: number;
+
+  @Satisfies(
+    'maxNotBelowMin',
+    (v, o) => !isFiniteNumber(v) || !isFiniteNumber(o.min) || v >= o.min,
+    'The longest installed length must not be less than the shortest.',
+  )
+  @NumberField('Longest installed length', { min: 0, exclusiveMin: true, max: 1000, unit: 'mm' })
+  max!: number;
+}
+
+export class ForkSpacerDto implements ForkSpacerInput {
+  @NumberField('Stock spacer length', { min: 0, max: 500, unit: 'mm' })
+  stockSpacerMm!: number;
+
+  @NumberField('Stock spring free length', { min: 0, exclusiveMin: true, max: 1000, unit: 'mm' })
+  stockFreeLengthMm!: number;
+
+  @NumberField('Stock preload', { min: 0, max: 100, unit: 'mm' })
+  stockPreloadMm!: number;
+}
+
 export class SpringDto implements SpringCandidateInput {
   @IsDefined({ message: 'Each spring needs an id.' })
   @IsString({ message: 'The spring id must be text.' })
@@ -314,8 +340,28 @@ abstract class SpringRequestBase {
   @NestedField('Sag targets', () => SagTargetsDto, { plural: true })
   targets!: SagTargetsDto;
 
+  @Satisfies(
+    'notBothPreloadForms',
+    (_v, o) => o.adjusterInstalledLengthMm === undefined,
+    'Give either the preload range or the adjuster’s installed-length window, not both.',
+  )
   @NestedField('Preload range', () => PreloadRangeDto)
-  preloadRangeMm!: PreloadRangeDto;
+  @ValidateIf((o: Obj) => o.preloadRangeMm !== undefined || o.adjusterInstalledLengthMm === undefined)
+  preloadRangeMm?: PreloadRangeDto;
+
+  @NestedField('Adjuster installed-length window', () => InstalledLengthWindowDto, { optional: true })
+  adjusterInstalledLengthMm?: InstalledLengthWindowDto;
+
+  @Satisfies(
+    'bandFreeLengthWithWindow',
+    (_v, o) => o.adjusterInstalledLengthMm !== undefined,
+    'A free length for the rate band applies only with the adjuster’s installed-length window.',
+  )
+  @NumberField('Free length for the rate band', { min: 0, exclusiveMin: true, max: 1000, unit: 'mm', optional: true })
+  bandFreeLengthMm?: number;
+
+  @NumberField('Static sag tolerance', { min: 0, exclusiveMin: true, max: 50, unit: 'mm', optional: true })
+  staticSagToleranceMm?: number;
 
   @ListField('Springs', () => SpringDto, {
     min: 0,
@@ -343,6 +389,9 @@ export class RearSpringRequestDto extends SpringRequestBase implements RearSprin
 
   @NumberField('Adjuster pitch', { min: 0, exclusiveMin: true, max: 10, unit: 'mm per turn' })
   adjusterPitchMm!: number;
+
+  @NumberField('Shock count', { min: 1, max: 2, int: true, optional: true })
+  shockCount?: number;
 }
 
 /** Body of POST /api/calculations/fork-spring. */
@@ -359,6 +408,10 @@ export class ForkSpringRequestDto extends SpringRequestBase implements ForkSprin
 
   @NumberField('Adjuster pitch', { min: 0, exclusiveMin: true, max: 10, unit: 'mm per turn', optional: true })
   adjusterPitchMm?: number;
+
+  @Satisfies('spacerWithoutAdjuster', (_v, o) => o.adjusterPitchMm === undefined, 'A preload spacer applies only to a fork without an adjuster.')
+  @NestedField('Spacer', () => ForkSpacerDto, { optional: true })
+  spacer?: ForkSpacerDto;
 }
 
 const solidLengthOf = (o: Obj): number | undefined => {
@@ -484,6 +537,13 @@ export class SagCheckRequestDto implements SagCheckInput {
 
   @NumberField('Rider load', { min: 0, exclusiveMin: true, max: 20_000, unit: 'N', optional: true })
   riderLoadN?: number;
+
+  @NumberField('Bike load', { min: 0, exclusiveMin: true, max: 20_000, unit: 'N', optional: true })
+  bikeLoadN?: number;
+
+  @Satisfies('shockCountRearOnly', (_v, o) => o.end === 'rear', 'Shock count applies to the rear only.')
+  @NumberField('Shock count', { min: 1, max: 2, int: true, optional: true })
+  shockCount?: number;
 }
 
 /** The request DTO class of each calculation endpoint, keyed by the last path segment. */

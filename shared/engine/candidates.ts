@@ -1,5 +1,17 @@
 import { EngineInputError } from './errors';
-import type { CasesResult, Load, LoadCase, PreloadRange, RateInUnitsLike, SpringCandidateInput, SpringCandidateResult, SpringVerdict } from './types';
+import { adjusterTurnsFromFullyOut, forkSpacerLength, springPreload, type PreloadSetting } from './preload';
+import type {
+  CasesResult,
+  ForkSpacerInput,
+  Load,
+  LoadCase,
+  PreloadRange,
+  RateInUnitsLike,
+  SagTargets,
+  SpringCandidateInput,
+  SpringCandidateResult,
+} from './types';
+import { judgeSpring } from './verdict';
 
 /**
  * Clamps a needed preload to the adjuster's range.
@@ -7,18 +19,6 @@ import type { CasesResult, Load, LoadCase, PreloadRange, RateInUnitsLike, Spring
  */
 export function clampPreload(preloadNeededMm: number, range: PreloadRange): number {
   return Math.min(range.max, Math.max(range.min, preloadNeededMm));
-}
-
-/**
- * Verdict for one spring: too soft when it needs more preload than the adjuster gives, too stiff when
- * it needs less than the minimum, else coil bind when the margin is negative, else ok.
- * @example springVerdict(25, { min: 2, max: 20 }) // 'too-soft'
- */
-export function springVerdict(preloadNeededMm: number, range: PreloadRange, coilBindMarginMm?: number): SpringVerdict {
-  if (preloadNeededMm > range.max) return 'too-soft';
-  if (preloadNeededMm < range.min) return 'too-stiff';
-  if (coilBindMarginMm !== undefined && coilBindMarginMm < 0) return 'coil-bind';
-  return 'ok';
 }
 
 /**
@@ -31,39 +31,63 @@ export function coilBindMargin(freeLengthMm: number, solidLengthMm: number, prel
 
 /** What an end (shock or fork) contributes to judging one spring. */
 export interface CandidateContext {
-  preloadRangeMm: PreloadRange;
+  preload: PreloadSetting;
   adjusterPitchMm?: number;
   /** How far the spring compresses beyond preload at full travel (shock stroke, fork travel), mm. */
   strokeMm: number;
+  targets: SagTargets;
+  staticSagToleranceMm: number;
+  spacer?: ForkSpacerInput;
+}
+
+/** The sags an end predicts for one preload set, and whether rider sag comes to rest on its target there. */
+export interface PredictedSags {
+  staticSagMm: number;
+  riderSagMm: number;
+  settles: boolean;
 }
 
 /**
- * Assembles one candidate's result from the preload it needs and the end's sag predictor
- * (static and rider sag for a given preload set).
- * @example buildCandidate(spring, 12, { preloadRangeMm: { min: 2, max: 20 }, strokeMm: 95 }, (p) => [25, 66])
+ * Assembles one candidate's result from the preload it needs and the end's sag predictor, judged by `judgeSpring`.
+ * @example buildCandidate(spring, 12, ctx, (p) => ({ staticSagMm: 25, riderSagMm: 66, settles: true }))
  */
 export function buildCandidate(
   spring: SpringCandidateInput,
   preloadNeededMm: number,
   ctx: CandidateContext,
-  sagsAt: (preloadMm: number) => readonly [staticSagMm: number, riderSagMm: number],
+  sagsAt: (preloadMm: number) => PredictedSags,
 ): SpringCandidateResult {
-  const preloadMm = clampPreload(preloadNeededMm, ctx.preloadRangeMm);
+  const { range, fullyOutMm } = springPreload(ctx.preload, spring.freeLengthMm);
+  const preloadMm = clampPreload(preloadNeededMm, range);
   const margin =
     spring.solidLengthMm === undefined ? undefined : coilBindMargin(spring.freeLengthMm, spring.solidLengthMm, preloadMm, ctx.strokeMm);
-  const [staticSagMm, riderSagMm] = sagsAt(preloadMm);
+  const sags = sagsAt(preloadMm);
+  const { verdict, reason } = judgeSpring({
+    preloadNeededMm,
+    preloadRangeMm: range,
+    settles: sags.settles,
+    staticSagMm: sags.staticSagMm,
+    targets: ctx.targets,
+    staticSagToleranceMm: ctx.staticSagToleranceMm,
+    coilBindMarginMm: margin,
+  });
   // Keys in the documented order, optional ones only when known.
   return {
     id: spring.id,
     rateNPerMm: spring.rateNPerMm,
     preloadNeededMm,
     preloadMm,
-    ...(ctx.adjusterPitchMm === undefined ? {} : { adjusterTurns: preloadMm / ctx.adjusterPitchMm }),
+    preloadRangeMm: range,
+    ...(ctx.adjusterPitchMm === undefined ? {} : { adjusterTurns: adjusterTurnsFromFullyOut(preloadMm, fullyOutMm, ctx.adjusterPitchMm) }),
+    ...(ctx.adjusterPitchMm === undefined && ctx.spacer !== undefined
+      ? { spacerLengthMm: forkSpacerLength(ctx.spacer, spring.freeLengthMm, preloadMm) }
+      : {}),
     installedLengthMm: spring.freeLengthMm - preloadMm,
-    staticSagMm,
-    riderSagMm,
+    staticSagMm: sags.staticSagMm,
+    riderSagMm: sags.riderSagMm,
     ...(margin === undefined ? {} : { coilBindMarginMm: margin }),
-    verdict: springVerdict(preloadNeededMm, ctx.preloadRangeMm, margin),
+    verdict,
+    reason,
   };
 }
 
@@ -88,7 +112,7 @@ interface CaseOutcome<R> {
 }
 
 /**
- * Merges per-case results: `coversAllCases` lists the spring ids that are `ok` in every case, ordered by
+ * Merges per-case results: `coversAllCases` lists the spring ids that are `ok` in every case (by `judgeSpring`), ordered by
  * their summed distance from each case's required rate; `uncoveredBy` maps every other spring id to the
  * first case (in input order) that breaks it.
  * @example combineCases([{ name: 'solo', result, requiredRateNPerMm: 58 }], ['R-58'])

@@ -1,7 +1,11 @@
 import { g, rateInUnits } from '../units';
+import { bandInUnits, linearRateBand, type RateBandNPerMm } from './band';
 import { buildCandidate, rankCandidates, runCases } from './candidates';
+import { bandPreloadRange, type PreloadSetting } from './preload';
 import { loadSplit, requireLoadOnEnd } from './statics';
+import { DEFAULT_STATIC_SAG_TOLERANCE_MM } from './verdict';
 import type {
+  ForkSpacerInput,
   ForkSpringCasesResult,
   ForkSpringInput,
   ForkSpringResult,
@@ -20,9 +24,11 @@ export interface ForkModel {
   bikeLoadN: number;
   totalLoadN: number;
   targets: SagTargets;
-  preloadRangeMm: PreloadRange;
+  preload: PreloadSetting;
   adjusterPitchMm?: number;
   forkTravelMm: number;
+  staticSagToleranceMm: number;
+  spacer?: ForkSpacerInput;
 }
 
 /**
@@ -57,11 +63,30 @@ export function forkRequiredRate(cosAngle: number, springCount: number, frontLoa
 export function evaluateForkSpring(model: ForkModel, spring: SpringCandidateInput): SpringCandidateResult {
   const k = spring.rateNPerMm;
   const preloadNeededMm = (model.cosAngle * model.totalLoadN) / (model.springCount * k) - model.targets.riderSagMm;
-  const ctx = { preloadRangeMm: model.preloadRangeMm, adjusterPitchMm: model.adjusterPitchMm, strokeMm: model.forkTravelMm };
-  return buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => [
-    forkSag(model, k, model.bikeLoadN, preloadMm),
-    forkSag(model, k, model.totalLoadN, preloadMm),
-  ]);
+  const ctx = {
+    preload: model.preload,
+    adjusterPitchMm: model.adjusterPitchMm,
+    strokeMm: model.forkTravelMm,
+    targets: model.targets,
+    staticSagToleranceMm: model.staticSagToleranceMm,
+    spacer: model.spacer,
+  };
+  // Sag is linear in load along the tubes, so the fork always comes to rest where the preload puts it.
+  return buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => ({
+    staticSagMm: forkSag(model, k, model.bikeLoadN, preloadMm),
+    riderSagMm: forkSag(model, k, model.totalLoadN, preloadMm),
+    settles: true,
+  }));
+}
+
+/**
+ * Per-spring rate band of a fork for a preload range, in closed form (sag = cos θ·F/(n·k) − p).
+ * @example forkRateBand(model, { min: 0, max: 15 })
+ */
+export function forkRateBand(model: ForkModel, preloadRangeMm: PreloadRange): RateBandNPerMm | undefined {
+  const c = { bikeLoadN: model.bikeLoadN, totalLoadN: model.totalLoadN, targets: model.targets, preloadRangeMm, staticSagToleranceMm: model.staticSagToleranceMm };
+  const band = linearRateBand(model.cosAngle, 1, c);
+  return band && { min: band.min / model.springCount, max: band.max / model.springCount };
 }
 
 function forkForLoads(input: ForkSpringInput, loads: readonly Load[]): ForkSpringResult {
@@ -74,19 +99,31 @@ function forkForLoads(input: ForkSpringInput, loads: readonly Load[]): ForkSprin
     bikeLoadN,
     totalLoadN: bikeLoadN + frontLoadN,
     targets: input.targets,
-    preloadRangeMm: input.preloadRangeMm,
+    preload: input,
     adjusterPitchMm: input.adjusterPitchMm,
     forkTravelMm: input.forkTravelMm,
+    staticSagToleranceMm: input.staticSagToleranceMm ?? DEFAULT_STATIC_SAG_TOLERANCE_MM,
+    spacer: input.spacer,
   };
   const required = forkRequiredRate(model.cosAngle, model.springCount, frontLoadN, input.targets);
   const candidates = (input.springs ?? []).map((s) => evaluateForkSpring(model, s));
-  return { frontLoadN, bikeLoadN, requiredRate: rateInUnits(required), candidates: rankCandidates(candidates, required) };
+  const bandRange = bandPreloadRange(input, input.bandFreeLengthMm);
+  const rateBand = bandInUnits(bandRange && forkRateBand(model, bandRange));
+  return {
+    frontLoadN,
+    bikeLoadN,
+    requiredRate: rateInUnits(required),
+    ...(rateBand === undefined ? {} : { rateBand }),
+    staticSagToleranceMm: model.staticSagToleranceMm,
+    candidates: rankCandidates(candidates, required),
+  };
 }
 
 /**
  * Fork spring selection, per spring of `springCount` (default 2) working in parallel; sag is along the tubes.
  * Same output shape as `computeRearSpring` with `frontLoadN`; with `cases` it returns the same
- * `{ cases, coversAllCases, uncoveredBy }` shape. `adjusterTurns` is omitted when there is no adjuster pitch.
+ * `{ cases, coversAllCases, uncoveredBy }` shape. `adjusterTurns` is omitted when there is no adjuster pitch; then,
+ * with `spacer`, each candidate carries the spacer length to cut.
  * Throws EngineInputError (on `loads`, or `cases.i.loads`) when the loads put no weight on the front wheel or lift it.
  * @example
  * computeForkSpring({ wheelbaseMm: 1500, sprungMassKg: 110, loads: [{ massKg: 80, positionMm: 900 }],

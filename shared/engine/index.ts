@@ -14,7 +14,6 @@ export {
 } from './leverage';
 export {
   clampPreload,
-  springVerdict,
   coilBindMargin,
   buildCandidate,
   rankCandidates,
@@ -22,14 +21,27 @@ export {
   runCases,
   isCasesResult,
   type CandidateContext,
+  type PredictedSags,
 } from './candidates';
-export { computeRearSpring, evaluateRearSpring, rearRequiredRate, rearPreloadNeeded, type RearModel } from './rear';
+export { judgeSpring, DEFAULT_STATIC_SAG_TOLERANCE_MM, SETTLE_TOLERANCE_MM, type SpringJudgeInput, type SpringJudgement } from './verdict';
+export { linearRateBand, curveRateBand, bandInUnits, type RateBandNPerMm, type BandConditions } from './band';
+export {
+  springPreload,
+  bandPreloadRange,
+  adjusterTurnsFromFullyOut,
+  forkSpacerLength,
+  type PreloadSetting,
+  type SpringPreload,
+} from './preload';
+export { roundAnswer, decimalsFor } from './rounding';
+export { computeRearSpring, evaluateRearSpring, rearRequiredRate, rearPreloadNeeded, rearRateBand, type RearModel } from './rear';
 export {
   computeForkSpring,
   evaluateForkSpring,
   forkRequiredRate,
   forkSag,
   forkSpringDeflection,
+  forkRateBand,
   type ForkModel,
 } from './fork';
 export {

@@ -36,22 +36,24 @@ describe('rear spring: the issue’s worked request', () => {
     expect(r.requiredRate.lbfPerIn).toBeCloseTo(expected / 0.17512683524647636, 6);
   });
 
-  it('lists ok springs first, closest rate first, then the rest by closeness', () => {
-    expect(r.candidates.map((c) => [c.id, c.verdict])).toEqual([
-      ['R-65', 'ok'],
-      ['R-75', 'ok'],
-      ['R-70', 'coil-bind'],
-      ['R-58', 'too-soft'],
-      ['R-100', 'too-stiff'],
+  it('lists ok springs first, closest rate first, then the rest by closeness, each with its reason', () => {
+    // R-75 holds rider sag in range but leaves 66 − 2.1²·W_r/75 ≈ 30.3 mm of static sag, beyond 25 ± 3 mm.
+    expect(r.candidates.map((c) => [c.id, c.verdict, c.reason])).toEqual([
+      ['R-65', 'ok', 'on-target'],
+      ['R-70', 'coil-bind', 'coil-bind'],
+      ['R-58', 'too-soft', 'preload-above-range'],
+      ['R-75', 'too-stiff', 'static-sag-high'],
+      ['R-100', 'too-stiff', 'preload-below-range'],
     ]);
   });
 
-  it('needs LR(s_r)·F_t/k − y(s_r) of preload and sets it inside the adjuster range, one turn per mm', () => {
+  it('needs LR(s_r)·F_t/k − y(s_r) of preload and sets it inside the adjuster range, one turn per mm from fully out', () => {
     const c = r.candidates.find((x) => x.id === 'R-75');
     const Ft = r.bikeLoadN + r.rearLoadN;
     expect(c?.preloadNeededMm).toBeCloseTo((2.1 * Ft) / 75 - 66 / 2.1, 9);
     expect(c?.preloadMm).toBe(c?.preloadNeededMm);
-    expect(c?.adjusterTurns).toBe(c?.preloadMm);
+    // The adjuster fully out already gives the range's 2 mm minimum.
+    expect(c?.adjusterTurns).toBeCloseTo((c?.preloadMm ?? NaN) - 2, 12);
     expect(c?.installedLengthMm).toBeCloseTo(229 - (c?.preloadMm ?? 0), 9);
     expect(c?.coilBindMarginMm).toBeCloseTo(229 - 110 - ((c?.preloadMm ?? 0) + 95), 9);
   });
@@ -370,7 +372,8 @@ describe('rear spring on a rising leverage ratio', () => {
   });
 
   it('keeps a spring stiff enough to rest on the target ok, with k·(p + y(s_r)) = LR(s_r)·F_t at the answer', () => {
-    const r = computeRearSpring(input(100));
+    // A wide static-sag tolerance keeps this about resting on the target, not about static sag.
+    const r = computeRearSpring({ ...input(100), staticSagToleranceMm: 50 });
     const c = r.candidates[0];
     expect(c?.verdict).toBe('ok');
     expect(c?.riderSagMm).toBeCloseTo(40, 6);

@@ -1,8 +1,11 @@
 import { g, rateInUnits } from '../units';
+import { bandInUnits, curveRateBand, linearRateBand, type RateBandNPerMm } from './band';
 import { buildCandidate, rankCandidates, runCases } from './candidates';
 import { EngineInputError } from './errors';
 import { createLeverageCurve, leverageRatioAt, shockTravelAt, solveShockEquilibrium, type LeverageCurve } from './leverage';
+import { bandPreloadRange, type PreloadSetting } from './preload';
 import { loadSplit, requireLoadOnEnd } from './statics';
+import { DEFAULT_STATIC_SAG_TOLERANCE_MM, SETTLE_TOLERANCE_MM } from './verdict';
 import type {
   Load,
   PreloadRange,
@@ -22,10 +25,13 @@ export interface RearModel {
   /** F_t = F_b + W_r, N. */
   totalLoadN: number;
   targets: SagTargets;
-  preloadRangeMm: PreloadRange;
+  preload: PreloadSetting;
   adjusterPitchMm?: number;
   wheelTravelMm: number;
   shockStrokeMm: number;
+  /** Shocks side by side; the wheel sees the sum of their rates. */
+  shockCount: number;
+  staticSagToleranceMm: number;
 }
 
 /**
@@ -47,27 +53,39 @@ export function rearPreloadNeeded(curve: LeverageCurve, rateNPerMm: number, tota
   return (leverageRatioAt(curve, riderSagMm) * totalLoadN) / rateNPerMm - shockTravelAt(curve, riderSagMm);
 }
 
-/** How far the settled rider sag may sit from its target before an in-range spring is judged not to hold it, mm. */
-const SETTLE_TOLERANCE_MM = 1e-3;
-
 /**
- * Evaluates one candidate spring on a prepared rear model. A spring whose preload is in range but which
- * settles short of the rider-sag target (a rising ratio makes the wheel rate negative before it, so the
- * target is not where the bike comes to rest) is too soft for the linkage.
+ * Evaluates one candidate spring on a prepared rear model (with twin shocks the wheel sees both springs). A spring
+ * whose preload is in range but which settles short of the rider-sag target (a rising ratio makes the wheel rate
+ * negative before it, so the target is not where the bike comes to rest) is too soft for the linkage.
  * @example evaluateRearSpring(model, { id: 'R-58', rateNPerMm: 58, freeLengthMm: 229, solidLengthMm: 110 })
  */
 export function evaluateRearSpring(model: RearModel, spring: SpringCandidateInput): SpringCandidateResult {
-  const k = spring.rateNPerMm;
-  const preloadNeededMm = rearPreloadNeeded(model.curve, k, model.totalLoadN, model.targets.riderSagMm);
-  const ctx = { preloadRangeMm: model.preloadRangeMm, adjusterPitchMm: model.adjusterPitchMm, strokeMm: model.shockStrokeMm };
-  const result = buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => {
+  const K = model.shockCount * spring.rateNPerMm;
+  const preloadNeededMm = rearPreloadNeeded(model.curve, K, model.totalLoadN, model.targets.riderSagMm);
+  const ctx = {
+    preload: model.preload,
+    adjusterPitchMm: model.adjusterPitchMm,
+    strokeMm: model.shockStrokeMm,
+    targets: model.targets,
+    staticSagToleranceMm: model.staticSagToleranceMm,
+  };
+  return buildCandidate(spring, preloadNeededMm, ctx, (preloadMm) => {
     const solve = (wheelForceN: number): number =>
-      solveShockEquilibrium(model.curve, { rateNPerMm: k, preloadMm, wheelForceN, wheelTravelMm: model.wheelTravelMm });
-    return [solve(model.bikeLoadN), solve(model.totalLoadN)];
+      solveShockEquilibrium(model.curve, { rateNPerMm: K, preloadMm, wheelForceN, wheelTravelMm: model.wheelTravelMm });
+    const riderSagMm = solve(model.totalLoadN);
+    return { staticSagMm: solve(model.bikeLoadN), riderSagMm, settles: Math.abs(riderSagMm - model.targets.riderSagMm) <= SETTLE_TOLERANCE_MM };
   });
-  const settlesOnTarget = Math.abs(result.riderSagMm - model.targets.riderSagMm) <= SETTLE_TOLERANCE_MM;
-  if ((result.verdict === 'ok' || result.verdict === 'coil-bind') && !settlesOnTarget) return { ...result, verdict: 'too-soft' };
-  return result;
+}
+
+/**
+ * Per-spring rate band of a rear model for a preload range: closed form with a constant ratio, bisection on a curve.
+ * @example rearRateBand(model, { min: 2, max: 20 })
+ */
+export function rearRateBand(model: RearModel, preloadRangeMm: PreloadRange): RateBandNPerMm | undefined {
+  const c = { bikeLoadN: model.bikeLoadN, totalLoadN: model.totalLoadN, targets: model.targets, preloadRangeMm, staticSagToleranceMm: model.staticSagToleranceMm };
+  const lr = model.curve.ratio[0] as number;
+  const band = model.curve.flat ? linearRateBand(lr * lr, lr, c) : curveRateBand(model.curve, model.wheelTravelMm, c);
+  return band && { min: band.min / model.shockCount, max: band.max / model.shockCount };
 }
 
 function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: readonly Load[]): RearSpringResult {
@@ -79,12 +97,14 @@ function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: reado
     bikeLoadN,
     totalLoadN: bikeLoadN + rearLoadN,
     targets: input.targets,
-    preloadRangeMm: input.preloadRangeMm,
+    preload: input,
     adjusterPitchMm: input.adjusterPitchMm,
     wheelTravelMm: input.wheelTravelMm,
     shockStrokeMm: input.shockStrokeMm,
+    shockCount: input.shockCount ?? 1,
+    staticSagToleranceMm: input.staticSagToleranceMm ?? DEFAULT_STATIC_SAG_TOLERANCE_MM,
   };
-  const required = rearRequiredRate(curve, bikeLoadN, model.totalLoadN, input.targets);
+  const required = rearRequiredRate(curve, bikeLoadN, model.totalLoadN, input.targets) / model.shockCount;
   // A ratio that falls steeply between the targets can ask the spring to push less at rider sag than at static sag.
   if (!(required > 0)) {
     throw new EngineInputError(
@@ -93,12 +113,23 @@ function rearForLoads(input: RearSpringInput, curve: LeverageCurve, loads: reado
     );
   }
   const candidates = (input.springs ?? []).map((s) => evaluateRearSpring(model, s));
-  return { rearLoadN, bikeLoadN, requiredRate: rateInUnits(required), candidates: rankCandidates(candidates, required) };
+  const bandRange = bandPreloadRange(input, input.bandFreeLengthMm);
+  const rateBand = bandInUnits(bandRange && rearRateBand(model, bandRange));
+  return {
+    rearLoadN,
+    bikeLoadN,
+    requiredRate: rateInUnits(required),
+    ...(rateBand === undefined ? {} : { rateBand }),
+    staticSagToleranceMm: model.staticSagToleranceMm,
+    candidates: rankCandidates(candidates, required),
+  };
 }
 
 /**
- * Rear spring selection: required rate for the sag targets and, per candidate spring, preload, adjuster
- * turns, installed length, predicted sags, coil-bind margin and a verdict, best candidate first.
+ * Rear spring selection: required rate for the sag targets, the rate band some preload in range sets right, and,
+ * per candidate spring, preload, adjuster turns (from fully out), installed length, predicted sags, coil-bind margin
+ * and the verdict of `judgeSpring` with its reason, best candidate first. Rates are per spring (`shockCount`
+ * springs side by side); preload comes from `preloadRangeMm` or, per spring, from `adjusterInstalledLengthMm`.
  *
  * With `loads` it returns one `RearSpringResult`. With `cases` instead it returns
  * `{ cases: [{ name, ...RearSpringResult }], coversAllCases, uncoveredBy }` where `coversAllCases` lists the

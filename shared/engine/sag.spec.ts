@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { createLeverageCurve, shockTravelAt } from './leverage';
+import fc from 'fast-check';
+import { createLeverageCurve, shockTravelAt, solveShockEquilibrium } from './leverage';
 import { averageReading, checkSag } from './sag';
 import type { SagCheckInput } from './types';
 
@@ -68,7 +69,7 @@ describe('sag check after fitting', () => {
     const r = checkSag({ ...rear, leverageRatio: curve });
     const c = createLeverageCurve(curve);
     expect(r.preloadChangeMm).toBeCloseTo(shockTravelAt(c, 71) - shockTravelAt(c, 66), 12);
-    expect(shockTravelAt(c, r.predictedStaticSagMm)).toBeCloseTo(shockTravelAt(c, 25) - r.preloadChangeMm, 9);
+    expect(shockTravelAt(c, r.predictedStaticSagMm ?? NaN)).toBeCloseTo(shockTravelAt(c, 25) - r.preloadChangeMm, 9);
   });
 
   it('at the fork, the preload change equals the sag error and the implied rate is cos θ·W/(n·Δsag)', () => {
@@ -92,5 +93,80 @@ describe('sag check after fitting', () => {
   it('refuses a rear check without a leverage ratio', () => {
     const { leverageRatio: _lr, ...rest } = rear;
     expect(() => checkSag(rest)).toThrow(RangeError);
+  });
+});
+
+describe('sag check on a leverage curve with the wheel loads', () => {
+  const points = [
+    { wheelTravelMm: 0, ratio: 3.3 },
+    { wheelTravelMm: 150, ratio: 3.0 },
+    { wheelTravelMm: 300, ratio: 2.6 },
+  ];
+  const curve = createLeverageCurve(points);
+
+  it('gives back the fitted spring’s rate and preload from readings made by the rear equilibrium, and its advice lands rider sag on target (property; consistency with the statics k·(p + y(s)) = LR(s)·F, within 0.5 % and 0.5 mm)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 15, max: 60, noNaN: true }),
+        fc.double({ min: 0, max: 25, noNaN: true }),
+        fc.double({ min: 400, max: 1200, noNaN: true }),
+        fc.double({ min: 300, max: 1200, noNaN: true }),
+        fc.double({ min: 60, max: 120, noNaN: true }),
+        (k, p, bikeLoadN, riderLoadN, riderTarget) => {
+          const solve = (F: number, preloadMm: number) => solveShockEquilibrium(curve, { rateNPerMm: k, preloadMm, wheelForceN: F, wheelTravelMm: 300 });
+          const ss = solve(bikeLoadN, p);
+          const sr = solve(bikeLoadN + riderLoadN, p);
+          fc.pre(ss > 0.5 && sr > ss + 1 && sr < 290);
+          const r = checkSag({
+            end: 'rear',
+            extendedMm: 900,
+            staticMm: 900 - ss,
+            riderMm: 900 - sr,
+            targets: { staticSagMm: 30, riderSagMm: riderTarget },
+            leverageRatio: points,
+            adjusterPitchMm: 1,
+            bikeLoadN,
+            riderLoadN,
+          });
+          expect(r.approximate).toBe(false);
+          expect(Math.abs((r.impliedRateNPerMm ?? NaN) / k - 1)).toBeLessThan(0.005);
+          if (p > 1) expect(Math.abs((r.impliedPreloadMm ?? NaN) / p - 1)).toBeLessThan(0.005);
+          const after = solve(bikeLoadN + riderLoadN, p + r.preloadChangeMm);
+          const aimed = r.preloadChangeMm === 0 ? sr : riderTarget;
+          if (p + r.preloadChangeMm >= 0 && r.springReason !== 'does-not-settle') expect(Math.abs(after - aimed)).toBeLessThan(0.5);
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+
+  it('with a constant ratio, implies LR²·W/(rider − static sag) from the same full formula', () => {
+    const r = checkSag({ ...rear, bikeLoadN: 900, riderLoadN: 800 });
+    expect(r.impliedRateNPerMm).toBeCloseTo((4 * 800) / (71 - 25), 9);
+    expect(r.approximate).toBe(false);
+  });
+
+  it('without the loads on a curve, says the answer is approximate and asks for a re-measure', () => {
+    const r = checkSag({ ...rear, leverageRatio: points });
+    expect(r.approximate).toBe(true);
+    expect(r.advice).toMatch(/measure the sag again after the change/);
+    expect(checkSag(rear).approximate).toBe(false);
+  });
+
+  it('with twin shocks, implies the rate of each spring', () => {
+    const one = checkSag({ ...rear, bikeLoadN: 900, riderLoadN: 800 });
+    const two = checkSag({ ...rear, bikeLoadN: 900, riderLoadN: 800, shockCount: 2 });
+    expect(two.impliedRateNPerMm).toBeCloseTo((one.impliedRateNPerMm ?? NaN) / 2, 9);
+  });
+});
+
+describe('sag check on a bike topped out on its own weight', () => {
+  it('warns instead of judging the spring from a static sag of 0', () => {
+    const r = checkSag({ ...rear, staticMm: 600, bikeLoadN: 900, riderLoadN: 800 });
+    expect(r.staticSagMm).toBe(0);
+    expect(r.springVerdict).toBe('unknown');
+    expect(r).not.toHaveProperty('predictedStaticSagMm');
+    expect(r.warning).toMatch(/topped out/);
+    expect(r.advice).toMatch(/topped out/);
   });
 });

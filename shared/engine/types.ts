@@ -31,6 +31,18 @@ export interface PreloadRange {
   max: number;
 }
 
+/** The spring's installed length the preload adjuster allows, from fully in (`min`) to fully out (`max`), mm. */
+export interface InstalledLengthWindow {
+  min: number;
+  max: number;
+}
+
+/** A rate band in the three units riders quote: the rates some preload in range can set right. */
+export interface RateBand {
+  min: RateInUnits;
+  max: RateInUnits;
+}
+
 /** A candidate spring as a catalogue or a rider gives it. */
 export interface SpringCandidateInput {
   id: string;
@@ -46,18 +58,42 @@ export interface RateInUnitsLike {
 
 export type SpringVerdict = 'ok' | 'too-soft' | 'too-stiff' | 'coil-bind';
 
-/** The outcome for one candidate spring; `coilBindMarginMm` only when its solid length is known, `adjusterTurns` only when there is an adjuster pitch. */
+/**
+ * Why a spring got its verdict: `on-target` (ok); `preload-above-range` / `preload-below-range` (the preload that puts
+ * rider sag on target is outside the adjuster's range); `does-not-settle` (a rising ratio lets the bike sink past the
+ * rider-sag target); `topped-out` (no static sag at all); `static-sag-low` / `static-sag-high` (static sag outside its
+ * tolerance); `coil-bind` (the coils would touch before full stroke).
+ */
+export type SpringReason =
+  | 'on-target'
+  | 'preload-above-range'
+  | 'preload-below-range'
+  | 'does-not-settle'
+  | 'topped-out'
+  | 'static-sag-low'
+  | 'static-sag-high'
+  | 'coil-bind';
+
+/**
+ * The outcome for one candidate spring; `coilBindMarginMm` only when its solid length is known, `adjusterTurns`
+ * (from the adjuster's fully-out position) only when there is an adjuster pitch, `spacerLengthMm` only for a fork
+ * without an adjuster whose stock spacer is known.
+ */
 export interface SpringCandidateResult {
   id: string;
   rateNPerMm: number;
   preloadNeededMm: number;
   preloadMm: number;
+  /** This spring's own preload range (it follows its free length when the adjuster is given as an installed-length window). */
+  preloadRangeMm: PreloadRange;
   adjusterTurns?: number;
+  spacerLengthMm?: number;
   installedLengthMm: number;
   staticSagMm: number;
   riderSagMm: number;
   coilBindMarginMm?: number;
   verdict: SpringVerdict;
+  reason: SpringReason;
 }
 
 interface SpringInputCommon {
@@ -68,8 +104,21 @@ interface SpringInputCommon {
   loads?: Load[];
   cases?: LoadCase[];
   targets: SagTargets;
-  preloadRangeMm: PreloadRange;
+  /** Give either the preload range or the adjuster's installed-length window (each spring's range then follows its free length). */
+  preloadRangeMm?: PreloadRange;
+  adjusterInstalledLengthMm?: InstalledLengthWindow;
+  /** With an installed-length window: the free length the rate band is worked out for (no band without it). */
+  bandFreeLengthMm?: number;
+  /** How far static sag may sit from its target, mm; 3 when omitted. */
+  staticSagToleranceMm?: number;
   springs?: SpringCandidateInput[];
+}
+
+/** A fork without an adjuster: the stock spacer, spring and preload from which a new spring's spacer follows. */
+export interface ForkSpacerInput {
+  stockSpacerMm: number;
+  stockFreeLengthMm: number;
+  stockPreloadMm: number;
 }
 
 export interface RearSpringInput extends SpringInputCommon {
@@ -77,6 +126,8 @@ export interface RearSpringInput extends SpringInputCommon {
   wheelTravelMm: number;
   shockStrokeMm: number;
   adjusterPitchMm: number;
+  /** Shocks working side by side (1 or 2); rates are per spring and the wheel sees their sum. 1 when omitted. */
+  shockCount?: number;
 }
 
 export interface ForkSpringInput extends SpringInputCommon {
@@ -86,6 +137,8 @@ export interface ForkSpringInput extends SpringInputCommon {
   forkTravelMm: number;
   /** Omitted for forks without a preload adjuster. */
   adjusterPitchMm?: number;
+  /** For a fork without an adjuster: gives each candidate the spacer length to cut. */
+  spacer?: ForkSpacerInput;
 }
 
 export interface RearSpringResult {
@@ -93,7 +146,11 @@ export interface RearSpringResult {
   rearLoadN: number;
   /** The bike's own sprung weight on the rear, F_b = g·sprungMassKg, N. */
   bikeLoadN: number;
+  /** Per spring: the rate that meets both sag targets exactly. */
   requiredRate: RateInUnits;
+  /** Per spring: the rates some preload in range sets right; absent when none does or the range depends on the free length. */
+  rateBand?: RateBand;
+  staticSagToleranceMm: number;
   candidates: SpringCandidateResult[];
 }
 
@@ -104,6 +161,9 @@ export interface ForkSpringResult {
   bikeLoadN: number;
   /** Required rate of each spring. */
   requiredRate: RateInUnits;
+  /** Per spring; see `RearSpringResult.rateBand`. */
+  rateBand?: RateBand;
+  staticSagToleranceMm: number;
   candidates: SpringCandidateResult[];
 }
 
@@ -165,7 +225,14 @@ export interface SagCheckInput {
   adjusterPitchMm?: number;
   /** The rider's load on this wheel, N. */
   riderLoadN?: number;
+  /** The bike's own sprung load on this wheel, N; with `riderLoadN` the rear check on a curve is exact. */
+  bikeLoadN?: number;
+  /** Rear only; 1 when omitted. The implied rate is per spring. */
+  shockCount?: number;
 }
+
+/** The sag check's word on the spring: the shared rule's verdict, or `unknown` when the bike is topped out on its own weight. */
+export type SagSpringVerdict = 'ok' | 'too-soft' | 'too-stiff' | 'unknown';
 
 export interface SagCheckResult {
   staticSagMm: number;
@@ -173,8 +240,18 @@ export interface SagCheckResult {
   /** Positive: add preload. */
   preloadChangeMm: number;
   adjusterTurns?: number;
-  predictedStaticSagMm: number;
-  springVerdict: 'ok' | 'too-soft' | 'too-stiff';
+  /** Static sag after the change; absent when the bike is topped out on its own weight (it cannot be read). */
+  predictedStaticSagMm?: number;
+  springVerdict: SagSpringVerdict;
+  /** The shared rule's reason; absent with `unknown`. */
+  springReason?: Exclude<SpringReason, 'preload-above-range' | 'preload-below-range' | 'coil-bind'>;
+  /** Per spring. */
   impliedRateNPerMm?: number;
+  /** Preload the spring holds now, solved from the readings (rear with both loads), mm. */
+  impliedPreloadMm?: number;
+  /** True on a leverage curve without both loads: the shock force is then taken as constant, so re-measure after the change. */
+  approximate: boolean;
+  /** Set when the bike is topped out on its own weight. */
+  warning?: string;
   advice: string;
 }

@@ -1,4 +1,5 @@
 import type { FitmentDto, LoadStationKind, SagEndDto } from '@shared/catalogue';
+import { defaultStaticSagToleranceMm } from '@shared/catalogue/constants';
 import { fitmentProblems, type FitmentRuleFields } from '@shared/catalogue/fitment-rules';
 import { fitmentRanges, withUnit, type FieldRange } from '@shared/catalogue/ranges';
 import { stationKinds } from '../catalogue-labels';
@@ -32,6 +33,7 @@ export const quantities = {
   rearLeverageRatio: { label: 'Leverage ratio', ...fitmentRanges.rearLeverageRatio, displayUnit: ':1', hint: 'Wheel travel over shock travel.' },
   rearWheelTravelMm: { label: 'Rear wheel travel', ...fitmentRanges.rearWheelTravelMm },
   shockStrokeMm: { label: 'Shock stroke', ...fitmentRanges.shockStrokeMm },
+  shockCount: { label: 'Shocks', ...fitmentRanges.shockCount, hint: '2 on a twin-shock bike; spring rates are per shock.' },
   rearPreloadMinMm: { label: 'Rear preload minimum', ...fitmentRanges.rearPreloadMinMm },
   rearPreloadMaxMm: { label: 'Rear preload maximum', ...fitmentRanges.rearPreloadMaxMm },
   rearAdjusterPitchMm: { label: 'Rear adjuster pitch', ...fitmentRanges.rearAdjusterPitchMm },
@@ -44,9 +46,13 @@ export const quantities = {
   forkPreloadMinMm: { label: 'Fork preload minimum', ...fitmentRanges.forkPreloadMinMm },
   forkPreloadMaxMm: { label: 'Fork preload maximum', ...fitmentRanges.forkPreloadMaxMm },
   forkAdjusterPitchMm: { label: 'Fork adjuster pitch', ...fitmentRanges.forkAdjusterPitchMm, optional: true, hint: 'Leave empty when the fork has no preload adjuster.' },
+  forkStockPreloadMm: { label: 'Stock fork preload', ...fitmentRanges.forkStockPreloadMm, hint: 'Spring compression at full extension as delivered.' },
+  forkStockSpacerMm: { label: 'Stock fork spacer', ...fitmentRanges.forkStockSpacerMm, optional: true, hint: 'Needed on forks without an adjuster, to give the spacer to cut.' },
   forkSpringInnerDiameterMm: { label: 'Fork spring inner diameter', ...fitmentRanges.forkSpringInnerDiameterMm },
   forkSpringFreeLengthMinMm: { label: 'Fork spring free length from', ...fitmentRanges.forkSpringFreeLengthMinMm },
   forkSpringFreeLengthMaxMm: { label: 'Fork spring free length to', ...fitmentRanges.forkSpringFreeLengthMaxMm },
+  frontStaticSagToleranceMm: { label: 'Front static sag tolerance', ...fitmentRanges.frontStaticSagToleranceMm, hint: 'How far static sag may sit from its target, along the fork.' },
+  rearStaticSagToleranceMm: { label: 'Rear static sag tolerance', ...fitmentRanges.rearStaticSagToleranceMm, hint: 'How far static sag may sit from its target, at the wheel.' },
   stockForkRateNPerMm: { label: 'Stock fork spring rate', ...fitmentRanges.stockForkRateNPerMm },
   stockForkFreeLengthMm: { label: 'Stock fork spring free length', ...fitmentRanges.stockForkFreeLengthMm },
   stockShockRateNPerMm: { label: 'Stock shock spring rate', ...fitmentRanges.stockShockRateNPerMm },
@@ -93,6 +99,9 @@ export function emptyFitmentDraft(): FitmentDraft {
   return {
     ...numbers,
     forkSpringCount: 2,
+    shockCount: 1,
+    frontStaticSagToleranceMm: defaultStaticSagToleranceMm,
+    rearStaticSagToleranceMm: defaultStaticSagToleranceMm,
     make: '',
     model: '',
     variant: '',
@@ -166,6 +175,7 @@ export function fitmentInputFromDraft(d: FitmentDraft): FitmentInput {
     rearLeverageCurve: d.leverageMode === 'curve' ? d.rearLeverageCurve.map((p) => ({ wheelTravelMm: n(p.wheelTravelMm), ratio: n(p.ratio) })) : null,
     rearWheelTravelMm: n(d.rearWheelTravelMm),
     shockStrokeMm: n(d.shockStrokeMm),
+    shockCount: n(d.shockCount),
     rearPreloadMinMm: n(d.rearPreloadMinMm),
     rearPreloadMaxMm: n(d.rearPreloadMaxMm),
     rearAdjusterPitchMm: n(d.rearAdjusterPitchMm),
@@ -178,6 +188,8 @@ export function fitmentInputFromDraft(d: FitmentDraft): FitmentInput {
     forkPreloadMinMm: n(d.forkPreloadMinMm),
     forkPreloadMaxMm: n(d.forkPreloadMaxMm),
     forkAdjusterPitchMm: d.forkAdjusterPitchMm,
+    forkStockSpacerMm: d.forkStockSpacerMm,
+    forkStockPreloadMm: n(d.forkStockPreloadMm),
     forkSpringInnerDiameterMm: n(d.forkSpringInnerDiameterMm),
     forkSpringFreeLengthMinMm: n(d.forkSpringFreeLengthMinMm),
     forkSpringFreeLengthMaxMm: n(d.forkSpringFreeLengthMaxMm),
@@ -185,6 +197,8 @@ export function fitmentInputFromDraft(d: FitmentDraft): FitmentInput {
       front: { unit: d.sag.front.unit, road: sagPair(d.sag.front.road), adventure: sagPair(d.sag.front.adventure), offRoad: sagPair(d.sag.front.offRoad) },
       rear: { unit: d.sag.rear.unit, road: sagPair(d.sag.rear.road), adventure: sagPair(d.sag.rear.adventure), offRoad: sagPair(d.sag.rear.offRoad) },
     },
+    frontStaticSagToleranceMm: n(d.frontStaticSagToleranceMm),
+    rearStaticSagToleranceMm: n(d.rearStaticSagToleranceMm),
     stockForkRateNPerMm: n(d.stockForkRateNPerMm),
     stockForkFreeLengthMm: n(d.stockForkFreeLengthMm),
     stockShockRateNPerMm: n(d.stockShockRateNPerMm),

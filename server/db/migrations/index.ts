@@ -1,7 +1,14 @@
 import { Accounts1764633600000 } from './1764633600000-accounts';
 import { Catalogue1764720000000 } from './1764720000000-catalogue';
+import { FitmentTolerances1764806400000 } from './1764806400000-fitment-tolerances';
 import { RateLimitCounters1764892800000 } from './1764892800000-rate-limit-counters';
 import { MailOutbox1764979200000 } from './1764979200000-mail-outbox';
 
 // Listed by hand: globbed .ts migrations do not load under every runner we use.
-export const migrations = [Accounts1764633600000, Catalogue1764720000000, RateLimitCounters1764892800000, MailOutbox1764979200000];
+export const migrations = [
+  Accounts1764633600000,
+  Catalogue1764720000000,
+  FitmentTolerances1764806400000,
+  RateLimitCounters1764892800000,
+  MailOutbox1764979200000,
+];
