@@ -12,7 +12,8 @@ export default defineConfig({
   fullyParallel: false,
   workers: 1,
   retries: 0,
-  timeout: 30_000,
+  // Long journeys on a 2-core machine that also runs the server and the stand-ins.
+  timeout: 60_000,
   expect: { timeout: 7_000 },
   reporter: [['list'], ['json', { outputFile: '../test-results/e2e.json' }]],
   outputDir: '../test-results/e2e-artifacts',
