@@ -28,11 +28,17 @@ test.describe('staff keep the fitment table', () => {
     await form.field('Wheelbase').fill('1530');
     await expect(await form.errorOf('Wheelbase')).toHaveCount(0);
 
-    // The shared check across fields (the form runs the server's rule): wheel travel over shock stroke stays between 1 and 5.
+    // The shared check across fields (the form runs the server's rule): 190 mm of wheel travel at 2.5 : 1 asks 76 mm of the shock.
     await form.field('Shock stroke').fill('30');
     await form.save();
-    await expect(await form.errorOf('Shock stroke')).toHaveText('Wheel travel over shock stroke should be between 1 and 5.');
+    await expect(await form.errorOf('Leverage ratio')).toHaveText(/moves the shock 76 mm, more than its 30 mm stroke/);
+    // A stroke left a quarter unused is only worth a second look.
+    await form.field('Shock stroke').fill('100');
+    await expect(page.getByTestId('fitment-warnings')).toContainText('uses 76 of its 100 mm stroke');
+    await expect(await form.errorOf('Leverage ratio')).toHaveCount(0);
+    await expect(form.field('Rear static sag tolerance')).toHaveValue('3');
     await form.field('Shock stroke').fill('76');
+    await expect(page.getByTestId('fitment-warnings')).toHaveCount(0);
     await form.save();
     await expect(page.getByText('Fitment saved')).toBeVisible();
 

@@ -49,14 +49,24 @@ describe('staff keep the fitment table', () => {
   it('a leverage curve is kept point by point and replaces the single ratio', async () => {
     const { http, staff } = await staffApp();
     const curve = [
-      { wheelTravelMm: 0, ratio: 2.8 },
-      { wheelTravelMm: 100, ratio: 2.5 },
-      { wheelTravelMm: 200, ratio: 2.3 },
+      { wheelTravelMm: 0, ratio: 2.9 },
+      { wheelTravelMm: 100, ratio: 2.6 },
+      { wheelTravelMm: 200, ratio: 2.4 },
     ];
     const res = await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput({ rearLeverageRatio: undefined, rearLeverageCurve: curve }));
     expect(res.status).toBe(201);
     expect(res.body.rearLeverageCurve).toEqual(curve);
     expect(res.body.rearLeverageRatio).toBeNull();
+  });
+
+  it('a ratio that asks the shock for more than its stroke, or a passenger ahead of the rider, is refused per field', async () => {
+    const { http, staff } = await staffApp();
+    const stations = fitmentInput().loadStations.map((st) => (st.station === 'passenger' ? { ...st, positionMm: 700 } : st));
+    const res = await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput({ rearLeverageRatio: 2.2, loadStations: stations }));
+    expect(res.status).toBe(400);
+    // 200 mm ÷ 2.2 = 90.9 mm of a 77 mm stroke.
+    expect(res.body.fields.rearLeverageRatio).toMatch(/90\.9 mm, more than its 77 mm stroke/);
+    expect(res.body.fields['loadStations.1.positionMm']).toMatch(/behind the rider/);
   });
 
   it('an edit is saved with its before and after in the audit log', async () => {
