@@ -15,6 +15,12 @@ test('a rider picks a demo bike, enters the load and gets fork and shock springs
     const first = table.getByRole('row').nth(1);
     await expect(first.getByText('Suits your load')).toBeVisible();
     await expect(first.getByRole('radio')).toBeChecked();
+    // Its predicted sags sit inside the targets the page states: static within its tolerance, rider sag on target.
+    const targets = await finder.statedTargets(end);
+    const sags = await finder.predictedSags(first);
+    expect(Math.abs(sags.staticSagMm - targets.staticSagMm)).toBeLessThanOrEqual(targets.toleranceMm);
+    expect(Math.abs(sags.riderSagMm - targets.riderSagMm)).toBeLessThanOrEqual(0.05);
+    await expect(finder.rateBand(end)).toContainText(/Rates from .* suit this load/);
   }
 
   await page.getByRole('link', { name: 'Open the setup sheet' }).click();

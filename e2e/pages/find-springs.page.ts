@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, type Locator, type Page } from '@playwright/test';
 
 export class FindSpringsPage {
   constructor(private readonly page: Page) {}
@@ -37,5 +37,22 @@ export class FindSpringsPage {
 
   candidates(end: 'Fork springs' | 'Shock spring') {
     return this.page.getByRole('table', { name: `${end}: candidates` });
+  }
+
+  rateBand(end: 'Fork springs' | 'Shock spring') {
+    return this.page.getByTestId(`${end.toLowerCase().replace(/\W+/g, '-')}-rate-band`);
+  }
+
+  /** The sag targets the page states for an end, as figures. */
+  async statedTargets(end: 'Fork springs' | 'Shock spring') {
+    const dd = this.page.getByTestId(`${end.toLowerCase().replace(/\W+/g, '-')}-targets`);
+    const read = async (name: string) => Number(await dd.getAttribute(name));
+    return { staticSagMm: await read('data-static-target'), riderSagMm: await read('data-rider-target'), toleranceMm: await read('data-tolerance') };
+  }
+
+  /** The static and rider sag a candidate row predicts. */
+  async predictedSags(row: Locator) {
+    const cell = row.getByTestId(/-sags$/);
+    return { staticSagMm: Number(await cell.getAttribute('data-static-sag')), riderSagMm: Number(await cell.getAttribute('data-rider-sag')) };
   }
 }

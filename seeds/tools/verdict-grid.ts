@@ -8,7 +8,7 @@ import { ridingStyles, type RecommendationDto, type RecommendedSpringDto, type S
 import { checkSag, type SagCheckInput } from '../../shared/engine';
 import { AppDataSource } from '../../server/db/data-source';
 import { Fitment } from '../../server/fitment/Fitment.entity';
-import { toFitmentDto } from '../../server/fitment/fitment.service';
+import { toFitmentDto, type FitmentWithBike } from '../../server/fitment/fitment.service';
 import { createBikeCache, recommend } from '../../server/recommendations/recommendations.service';
 
 const ds = await AppDataSource.initialize();
@@ -17,7 +17,7 @@ const counts = { ends: 0, firstNotOk: 0, noOk: 0, okCandidates: 0, sagCheckDisag
 const examples: string[] = [];
 try {
   for (const entity of await ds.getRepository(Fitment).find({ relations: { bike: true } })) {
-    const f = toFitmentDto(entity);
+    const f = toFitmentDto(entity as FitmentWithBike);
     const seat = f.loadStations.find((s) => s.station === 'passenger');
     for (const ridingStyle of ridingStyles) {
       for (let massKg = 55; massKg <= 120; massKg += 1) {
