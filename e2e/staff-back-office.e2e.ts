@@ -7,6 +7,8 @@ import { tinyPng } from './support/catalogue-data';
 
 test.describe('staff keep the fitment table', () => {
   test('editing a fitment shows a refused value under its field, and saves once it is corrected', async ({ page, signIn, catalogue }) => {
+    // A long journey through the form on a shared machine.
+    test.slow();
     await signIn('staff');
     const fitment = await catalogue.createFitment();
     const list = new StaffFitmentsPage(page);
@@ -107,6 +109,13 @@ test.describe('staff keep the catalogue', () => {
     const rate = form.geometry().getByTestId('computed-rate');
     await expect(rate).toHaveText(/^85\.11\s?N\/mm$/);
     await expect(form.geometry().getByTestId('rate-agrees')).toBeVisible();
+    // Closed to solid: τ = K_B·8·F·D/(π·d³) ≈ 651 MPa against 65 % of Sut = 1974/12.5^0.108 MPa ≈ 977 (Shigley 10th ed. Tables 10-4, 10-6).
+    await expect(form.geometry().getByTestId('solid-stress-ok')).toContainText('651');
+    // 60 mm longer, the same coils close through 126 mm: about 1240 MPa, so it would take a set.
+    await form.field('Free length').fill('250');
+    await expect(form.geometry().getByTestId('solid-stress-flag')).toContainText('takes a set');
+    await form.field('Free length').fill('190');
+    await expect(form.geometry().getByTestId('solid-stress-flag')).toHaveCount(0);
 
     // Thicker wire: k grows with d⁴, so the stated 85 N/mm is now about 16 % soft of the geometry.
     await form.field('Wire diameter').fill('13');
