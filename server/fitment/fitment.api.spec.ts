@@ -69,6 +69,18 @@ describe('staff keep the fitment table', () => {
     expect(res.body.fields['loadStations.1.positionMm']).toMatch(/behind the rider/);
   });
 
+  it('the number of shocks, the static-sag tolerances and the stock fork spacer are checked against their ranges and default when left out', async () => {
+    const { http, staff } = await staffApp();
+    const bad = await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput({ shockCount: 3, rearStaticSagToleranceMm: 0, forkStockSpacerMm: -1 }));
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields).toMatchObject({ shockCount: 'Must be at most 2 shocks.', rearStaticSagToleranceMm: 'Must be at least 0.5 mm.', forkStockSpacerMm: 'Must be at least 0 mm.' });
+    const { shockCount: _s, frontStaticSagToleranceMm: _f, rearStaticSagToleranceMm: _r, forkStockPreloadMm: _p, ...plain } = fitmentInput();
+    const saved = (await http.post('/api/staff/fitments').set(staff.auth).send(plain).expect(201)).body;
+    expect(saved).toMatchObject({ shockCount: 1, frontStaticSagToleranceMm: 3, rearStaticSagToleranceMm: 3, forkStockSpacerMm: null, forkStockPreloadMm: 0 });
+    const twin = (await http.put(`/api/staff/fitments/${saved.id}`).set(staff.auth).send(fitmentInput({ shockCount: 2, rearStaticSagToleranceMm: 6 })).expect(200)).body;
+    expect(twin).toMatchObject({ shockCount: 2, rearStaticSagToleranceMm: 6 });
+  });
+
   it('an edit is saved with its before and after in the audit log', async () => {
     const { http, staff } = await staffApp();
     const created = (await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput())).body as FitmentDto;
