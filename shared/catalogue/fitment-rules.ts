@@ -89,11 +89,6 @@ export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
   if (below(f.forkPreloadMaxMm, f.forkPreloadMinMm)) p.forkPreloadMaxMm = 'The maximum is not below the minimum.';
   if (below(f.shockSpringFreeLengthMaxMm, f.shockSpringFreeLengthMinMm)) p.shockSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
   if (below(f.forkSpringFreeLengthMaxMm, f.forkSpringFreeLengthMinMm)) p.forkSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
-  const stroke = strokeUse(f);
-  if (stroke && stroke.shockTravelMm > stroke.strokeMm * (1 + strokeOverrunShare)) {
-    p[stroke.field] =
-      `At full wheel travel this ${stroke.field === 'rearLeverageRatio' ? 'ratio' : 'curve'} moves the shock ${mm1(stroke.shockTravelMm)} mm, more than its ${mm1(stroke.strokeMm)} mm stroke: check the ratio, the wheel travel and the stroke.`;
-  }
   if (below(f.forkPreloadMaxMm, f.forkStockPreloadMm) || below(f.forkStockPreloadMm, f.forkPreloadMinMm)) {
     p.forkStockPreloadMm = 'The stock preload lies within the fork preload range.';
   }
@@ -115,6 +110,12 @@ export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
   if (sprung && sprung.rearSprungMassKg < 20) p.rearUnsprungMassKg = 'This leaves less than 20 kg sprung on the rear.';
   const steep = steepCurveProblem(f, f.massInput === 'wet' ? sprung?.rearSprungMassKg : f.rearSprungMassKg);
   if (steep && !p.rearLeverageCurve) p.rearLeverageCurve = steep;
+  // After the steep-curve rule: a curve no spring can use is named for that first.
+  const stroke = strokeUse(f);
+  if (stroke && !p[stroke.field] && stroke.shockTravelMm > stroke.strokeMm * (1 + strokeOverrunShare)) {
+    p[stroke.field] =
+      `At full wheel travel this ${stroke.field === 'rearLeverageRatio' ? 'ratio' : 'curve'} moves the shock ${mm1(stroke.shockTravelMm)} mm, more than its ${mm1(stroke.strokeMm)} mm stroke: check the ratio, the wheel travel and the stroke.`;
+  }
   for (const end of ['front', 'rear'] as const) {
     const e = f.sag?.[end];
     if (!e) continue;
