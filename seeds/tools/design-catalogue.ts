@@ -345,7 +345,7 @@ for (const family of families) {
   });
 }
 
-// Every load of the grid once more against the final ladders, and the stock springs: one step soft of what suits a 75 kg road rider.
+// Every load of the grid once more against the final ladders, and the stock springs: one step soft of the middle of what suits a 75 kg road rider.
 const misses: string[] = [];
 for (const d of designed) {
   for (const end of ['fork', 'shock'] as const) {
@@ -361,8 +361,10 @@ for (const d of designed) {
     const pair = (d.dto.sag[end === 'fork' ? 'front' : 'rear'] as unknown as Record<Style, { static: number; rider: number }>).road;
     const rider = d.dto.loadStations[0]!;
     const e = endDesign(d, end, [{ massKg: 75 + gridGearKg, positionMm: rider.positionMm }], { staticSagMm: pair.static, riderSagMm: pair.rider });
-    const suiting = rates.filter((r) => r.offset === 0 && suits(e, r.rate)).map((r) => r.rate);
-    const stock = r1(Math.max(family.step, (suiting[0] ?? rates[0]!.rate) - family.step));
+    // The middle of that rider's band (geometric mean), on the family's steps, one step soft: stock springs are often set up for a lighter rider.
+    const band = rateBand(e);
+    const middle = band ? Math.sqrt(band.min * band.max) : rates[0]!.rate;
+    const stock = r1(Math.max(family.step, Math.round(middle / family.step) * family.step - family.step));
     if (end === 'fork') d.dto.stockForkRateNPerMm = stock;
     else d.dto.stockShockRateNPerMm = stock;
   }

@@ -27,6 +27,19 @@ describe('staff keep the product catalogue', () => {
     expect(p.currency).toBe('EUR');
   });
 
+  it('a spring that would take a set if closed to solid is flagged in the product answer; the same coils with less travel to solid are not', async () => {
+    const { http, staff } = await staffApp();
+    const long = (await http.post('/api/staff/products').set(staff.auth).send(springInput({}, { freeLengthMm: 190 })).expect(201)).body as StaffProductDto;
+    const short = (await http.post('/api/staff/products').set(staff.auth).send(springInput({}, { freeLengthMm: 150 })).expect(201)).body as StaffProductDto;
+    // 85.73 N/mm × (190 − 96) mm = 8059 N; τ = K_B·8·F·D/(π·d³) with C = 73/12, K_B = 1.235 (Shigley eq. 10-5): about 1070 MPa,
+    // over 65 % of Sut = 1974/12^0.108 MPa (Tables 10-4 and 10-6, set removed, extrapolated past the 9.5 mm the table covers).
+    const seen = (await http.get(`/api/products/${long.id}`).expect(200)).body as StaffProductDto;
+    expect(seen.spring!.geometry.solidStress).toMatchObject({ exceeds: true, withinTableSizes: false });
+    expect(seen.spring!.geometry.solidStress!.shearStressAtSolidMPa).toBeCloseTo(1070, -1);
+    expect(seen.spring!.geometry.solidStress!.allowableMPa).toBeCloseTo(0.65 * (1974 / 12 ** 0.108), 6);
+    expect(short.spring!.geometry.solidStress!.exceeds).toBe(false);
+  });
+
   it('a stated rate more than 5 % away from the geometry is saved but flagged to staff', async () => {
     const { http, staff } = await staffApp();
     const res = await http.post('/api/staff/products').set(staff.auth).send(springInput({}, { rateNPerMm: 95 }));

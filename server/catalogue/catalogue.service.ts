@@ -14,7 +14,7 @@ import type {
   StockUpdateDto,
 } from '../../shared/catalogue';
 import { springEnds, springEndTypes } from '../../shared/catalogue';
-import { SPRING_MATERIALS } from '../../shared/engine';
+import { catalogueSolidStress, SPRING_MATERIALS } from '../../shared/engine';
 import { recordAudit } from '../audit/audit.service';
 import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
@@ -62,6 +62,14 @@ function toSpringDto(p: Product): SpringDetailsDto | null {
       rateMismatch: Math.abs(deviation) > rateMismatchPct,
       springIndex: p.springIndex!,
       activeCoils: p.activeCoils!,
+      solidStress: catalogueSolidStress({
+        material: p.material!,
+        wireDiameterMm: p.wireDiameterMm!,
+        outerDiameterMm: p.outerDiameterMm!,
+        computedRateNPerMm: computed,
+        freeLengthMm: p.freeLengthMm!,
+        solidLengthMm: p.solidLengthMm ?? p.computedSolidLengthMm!,
+      }),
     },
   };
 }

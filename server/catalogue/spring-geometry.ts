@@ -1,5 +1,5 @@
 import type { SpringGeometryFieldsDto, SpringGeometryPreviewDto } from '../../shared/catalogue';
-import { computeSpringGeometry, shearModulusFor } from '../../shared/engine';
+import { catalogueSolidStress, computeSpringGeometry, shearModulusFor } from '../../shared/engine';
 import { AppError } from '../errors';
 
 /** A stated rate further than this from the geometry's is flagged to staff. */
@@ -42,6 +42,7 @@ export function springGeometry(g: SpringGeometryFieldsDto, statedRateNPerMm?: nu
     rateMismatch: Math.abs(deviation) > rateMismatchPct,
     springIndex: r.springIndex,
     activeCoils: r.activeCoils,
+    solidStress: catalogueSolidStress({ material: g.material, wireDiameterMm: g.wireDiameterMm, outerDiameterMm: g.outerDiameterMm, computedRateNPerMm: r.rateNPerMm, freeLengthMm: g.freeLengthMm, solidLengthMm: solid }),
     meanDiameterMm: r.meanDiameterMm,
     innerDiameterMm: g.outerDiameterMm - 2 * g.wireDiameterMm,
     wahlFactor: r.wahlFactor,

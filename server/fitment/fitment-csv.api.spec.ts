@@ -26,7 +26,7 @@ describe('the fitment table as CSV', () => {
     expect(rowsOf(first)).toHaveLength(20);
     const preview = await send('import/preview', first);
     expect(preview.status).toBe(200);
-    expect(preview.body).toEqual({ dryRun: true, rows: 20, created: 0, updated: 0, unchanged: 20, problems: [] } satisfies CsvImportReportDto);
+    expect(preview.body).toEqual({ dryRun: true, rows: 20, created: 0, updated: 0, unchanged: 20, problems: [], warnings: [] } satisfies CsvImportReportDto);
     const imported = await send('import', first);
     expect(imported.body).toMatchObject({ dryRun: false, unchanged: 20, created: 0, updated: 0 });
     expect(await exportCsv()).toBe(first);
@@ -65,6 +65,21 @@ describe('the fitment table as CSV', () => {
     const created = (await http.get(`/api/fitments/${list[0].id}`)).body;
     // The bottom of the fork preload range stands in for an unknown stock preload.
     expect(created).toMatchObject({ shockCount: 1, rearStaticSagToleranceMm: 3, frontStaticSagToleranceMm: 3, forkStockSpacerMm: null, forkStockPreloadMm: twin.forkPreloadMinMm });
+  });
+
+  it('the shared consistency rules judge CSV rows as the form does: a ratio past the stroke is refused, an unused stroke is only a warning', async () => {
+    const { http, staff, exportCsv, send } = await staffApp();
+    await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput()).expect(201);
+    const [row] = rowsOf(await exportCsv());
+    // 200 mm ÷ 2.6 = 76.9 mm of shock travel.
+    const refused = await send('import/preview', csvOf([{ ...row!, shockStrokeMm: '70' }, { ...row!, id: '', model: 'Pillion ahead', passengerPositionMm: '700' }]));
+    expect(refused.body.problems.map((p: { line: number; column: string }) => [p.line, p.column])).toEqual([
+      [2, 'rearLeverage'],
+      [3, 'passengerPositionMm'],
+    ]);
+    const warned = await send('import', csvOf([{ ...row!, shockStrokeMm: '100' }]));
+    expect(warned.status).toBe(200);
+    expect(warned.body).toMatchObject({ updated: 1, problems: [], warnings: [{ line: 2, column: 'shockStrokeMm', message: expect.stringMatching(/76\.9 of its 100 mm stroke/) }] });
   });
 
   it('an imported update is audited with the same fitment shape before and after, as the form saves it', async () => {

@@ -6,6 +6,7 @@ import { randomUUID } from 'node:crypto';
 import { In, type EntityManager } from 'typeorm';
 import {
   fitmentProblems,
+  fitmentWarnings,
   FitmentInputDto,
   loadStationKinds,
   type CsvImportReportDto,
@@ -160,7 +161,7 @@ function parseNumber(raw: string, column: string, problems: CsvProblemDto[], lin
 }
 
 /** Turns one CSV row into a validated input, collecting every problem with its column. */
-function parseRow(cells: Record<string, string>, line: number, problems: CsvProblemDto[]): ParsedRow | undefined {
+function parseRow(cells: Record<string, string>, line: number, problems: CsvProblemDto[], warnings: CsvProblemDto[]): ParsedRow | undefined {
   const before = problems.length;
   for (const [column, value] of Object.entries(cells)) if (!isStorableText(value)) problems.push({ line, column, message: unstorableTextMessage });
   if (problems.length > before) return undefined;
@@ -226,6 +227,7 @@ function parseRow(cells: Record<string, string>, line: number, problems: CsvProb
   const fields = errors.length ? flattenValidationErrors(errors) : fitmentProblems(dto);
   for (const [path, message] of Object.entries(fields)) problems.push({ line, column: columnOf(path, stations), message });
   if (problems.length > before) return undefined;
+  for (const [path, message] of Object.entries(fitmentWarnings(dto))) warnings.push({ line, column: columnOf(path, stations), message });
   return { line, id: id ? id.toLowerCase() : null, dto };
 }
 
@@ -255,19 +257,20 @@ const keyOf = (make: string, model: string, variant: string, yearFrom: number) =
 export async function importFitmentsCsv(actorId: string, text: string | undefined, opts: { dryRun: boolean }): Promise<CsvImportReportDto> {
   if (text === undefined) throw AppError.validation('Send the CSV as the request body with Content-Type text/csv.', { body: 'expected text/csv' });
   const problems: CsvProblemDto[] = [];
+  const warnings: CsvProblemDto[] = [];
   let records: { info: { lines: number }; record: string[] }[];
   try {
     records = parse(text, { bom: true, info: true, skip_empty_lines: true, relax_column_count: true }) as unknown as typeof records;
   } catch (e) {
     const err = e as { message?: string; lines?: number };
-    throw importRefused({ dryRun: opts.dryRun, rows: 0, created: 0, updated: 0, unchanged: 0, problems: [{ line: err.lines ?? 1, column: '', message: `The file is not valid CSV: ${err.message ?? 'unreadable'}` }] });
+    throw importRefused({ dryRun: opts.dryRun, rows: 0, created: 0, updated: 0, unchanged: 0, problems: [{ line: err.lines ?? 1, column: '', message: `The file is not valid CSV: ${err.message ?? 'unreadable'}` }], warnings: [] });
   }
   const [header, ...body] = records;
-  if (!header) throw importRefused({ dryRun: opts.dryRun, rows: 0, created: 0, updated: 0, unchanged: 0, problems: [{ line: 1, column: '', message: 'The file is empty.' }] });
+  if (!header) throw importRefused({ dryRun: opts.dryRun, rows: 0, created: 0, updated: 0, unchanged: 0, problems: [{ line: 1, column: '', message: 'The file is empty.' }], warnings: [] });
   const names = header.record.map((h) => h.trim());
   for (const n of names) if (!csvColumns.includes(n)) problems.push({ line: 1, column: n, message: 'Unknown column.' });
   for (const c of csvColumns) if (!names.includes(c) && !optionalColumns.includes(c)) problems.push({ line: 1, column: c, message: 'This column is missing.' });
-  if (problems.length) throw importRefused({ dryRun: opts.dryRun, rows: body.length, created: 0, updated: 0, unchanged: 0, problems });
+  if (problems.length) throw importRefused({ dryRun: opts.dryRun, rows: body.length, created: 0, updated: 0, unchanged: 0, problems, warnings: [] });
 
   const parsed: ParsedRow[] = [];
   for (const { info, record } of body) {
@@ -276,7 +279,7 @@ export async function importFitmentsCsv(actorId: string, text: string | undefine
       continue;
     }
     const cells = Object.fromEntries(names.map((n, i) => [n, record[i] ?? '']));
-    const row = parseRow(cells, info.lines, problems);
+    const row = parseRow(cells, info.lines, problems, warnings);
     if (row) parsed.push(row);
   }
 
@@ -305,7 +308,7 @@ export async function importFitmentsCsv(actorId: string, text: string | undefine
       }
     }
     problems.sort((a, b) => a.line - b.line);
-    const report: CsvImportReportDto = { dryRun: opts.dryRun, rows: body.length, created: 0, updated: 0, unchanged: 0, problems };
+    const report: CsvImportReportDto = { dryRun: opts.dryRun, rows: body.length, created: 0, updated: 0, unchanged: 0, problems, warnings };
     if (problems.length) return report;
 
     // Bikes are created up front, in one go, so each row only needs a lookup.

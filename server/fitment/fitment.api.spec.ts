@@ -49,14 +49,36 @@ describe('staff keep the fitment table', () => {
   it('a leverage curve is kept point by point and replaces the single ratio', async () => {
     const { http, staff } = await staffApp();
     const curve = [
-      { wheelTravelMm: 0, ratio: 2.8 },
-      { wheelTravelMm: 100, ratio: 2.5 },
-      { wheelTravelMm: 200, ratio: 2.3 },
+      { wheelTravelMm: 0, ratio: 2.9 },
+      { wheelTravelMm: 100, ratio: 2.6 },
+      { wheelTravelMm: 200, ratio: 2.4 },
     ];
     const res = await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput({ rearLeverageRatio: undefined, rearLeverageCurve: curve }));
     expect(res.status).toBe(201);
     expect(res.body.rearLeverageCurve).toEqual(curve);
     expect(res.body.rearLeverageRatio).toBeNull();
+  });
+
+  it('a ratio that asks the shock for more than its stroke, or a passenger ahead of the rider, is refused per field', async () => {
+    const { http, staff } = await staffApp();
+    const stations = fitmentInput().loadStations.map((st) => (st.station === 'passenger' ? { ...st, positionMm: 700 } : st));
+    const res = await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput({ rearLeverageRatio: 2.2, loadStations: stations }));
+    expect(res.status).toBe(400);
+    // 200 mm ÷ 2.2 = 90.9 mm of a 77 mm stroke.
+    expect(res.body.fields.rearLeverageRatio).toMatch(/90\.9 mm, more than its 77 mm stroke/);
+    expect(res.body.fields['loadStations.1.positionMm']).toMatch(/behind the rider/);
+  });
+
+  it('the number of shocks, the static-sag tolerances and the stock fork spacer are checked against their ranges and default when left out', async () => {
+    const { http, staff } = await staffApp();
+    const bad = await http.post('/api/staff/fitments').set(staff.auth).send(fitmentInput({ shockCount: 3, rearStaticSagToleranceMm: 0, forkStockSpacerMm: -1 }));
+    expect(bad.status).toBe(400);
+    expect(bad.body.fields).toMatchObject({ shockCount: 'Must be at most 2 shocks.', rearStaticSagToleranceMm: 'Must be at least 0.5 mm.', forkStockSpacerMm: 'Must be at least 0 mm.' });
+    const { shockCount: _s, frontStaticSagToleranceMm: _f, rearStaticSagToleranceMm: _r, forkStockPreloadMm: _p, ...plain } = fitmentInput();
+    const saved = (await http.post('/api/staff/fitments').set(staff.auth).send(plain).expect(201)).body;
+    expect(saved).toMatchObject({ shockCount: 1, frontStaticSagToleranceMm: 3, rearStaticSagToleranceMm: 3, forkStockSpacerMm: null, forkStockPreloadMm: 0 });
+    const twin = (await http.put(`/api/staff/fitments/${saved.id}`).set(staff.auth).send(fitmentInput({ shockCount: 2, rearStaticSagToleranceMm: 6 })).expect(200)).body;
+    expect(twin).toMatchObject({ shockCount: 2, rearStaticSagToleranceMm: 6 });
   });
 
   it('an edit is saved with its before and after in the audit log', async () => {

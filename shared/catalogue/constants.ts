@@ -68,5 +68,5 @@ export const springFitToleranceMm = 0.5;
 export const auditEntityTypes = ['fitment', 'product', 'compatibility'] as const;
 export type AuditEntityType = (typeof auditEntityTypes)[number];
 
-/** How far a predicted static sag may sit from its target when a fitment names no tolerance, mm (common practice). */
-export const defaultStaticSagToleranceMm = 3;
+/** How far a predicted static sag may sit from its target when a fitment names no tolerance, mm: the engine's default. */
+export { DEFAULT_STATIC_SAG_TOLERANCE_MM as defaultStaticSagToleranceMm } from '../engine/verdict';

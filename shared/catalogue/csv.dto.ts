@@ -19,4 +19,6 @@ export interface CsvImportReportDto {
   updated: number;
   unchanged: number;
   problems: CsvProblemDto[];
+  /** What staff should look at twice; it does not stop the import (see `fitmentWarnings`). */
+  warnings: CsvProblemDto[];
 }

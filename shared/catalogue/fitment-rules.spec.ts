@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitmentProblems, sprungFromWet, sprungFromWetOrNull, type FitmentRuleFields } from './fitment-rules';
+import { fitmentProblems, fitmentWarnings, sprungFromWet, sprungFromWetOrNull, strokeUse, type FitmentRuleFields } from './fitment-rules';
 
 const complete = (over: Partial<FitmentRuleFields> = {}): FitmentRuleFields => ({
   yearFrom: 2019,
@@ -37,6 +37,8 @@ describe('fitment rules across fields', () => {
         wheelbaseMm: 1520,
         loadStations: [{ station: 'rider', positionMm: 760 }],
         sag: { rear: { unit: 'mm', road: { static: 20, rider: 55 } } },
+        // The stroke is left blank so only the curve's own rule speaks.
+        shockStrokeMm: null,
         ...over,
       });
 
@@ -81,8 +83,59 @@ describe('fitment rules across fields', () => {
     expect(p['sag.rear.road.rider']).toBe('Rider sag is less than 60 % of the travel.');
   });
 
-  it('wheel travel over a too-short stroke is named on the stroke', () => {
-    expect(fitmentProblems(complete({ shockStrokeMm: 30 })).shockStrokeMm).toBe('Wheel travel over shock stroke should be between 1 and 5.');
+  describe('wheel travel, leverage and stroke agree', () => {
+    it('a ratio that asks more than the stroke at full travel is refused on the ratio: 210 mm ÷ 2.6 = 80.8 mm of a 76 mm stroke', () => {
+      const p = fitmentProblems(complete({ rearWheelTravelMm: 210, rearLeverageRatio: 2.6, shockStrokeMm: 76 }));
+      expect(p.rearLeverageRatio).toMatch(/moves the shock 80\.8 mm, more than its 76 mm stroke/);
+      // 210 ÷ 2.76 = 76.1 mm: within the 1 % allowed for rounding in makers' figures.
+      expect(fitmentProblems(complete({ rearWheelTravelMm: 210, rearLeverageRatio: 2.76, shockStrokeMm: 76 })).rearLeverageRatio).toBeUndefined();
+    });
+
+    it('a curve is judged by ∫ ds / LR over the travel, which a midpoint sum of 20,000 steps agrees with to 0.01 mm', () => {
+      const curve = [{ wheelTravelMm: 0, ratio: 3.3 }, { wheelTravelMm: 150, ratio: 3.0 }, { wheelTravelMm: 290, ratio: 2.6 }];
+      const lr = (s: number) => (s <= 150 ? 3.3 - (0.3 * s) / 150 : 3.0 - (0.4 * (s - 150)) / 140);
+      let sum = 0;
+      for (let i = 0; i < 20_000; i++) sum += 290 / 20_000 / lr(((i + 0.5) * 290) / 20_000);
+      const use = strokeUse({ rearLeverageRatio: null, rearLeverageCurve: curve, rearWheelTravelMm: 290, shockStrokeMm: 100 })!;
+      expect(Math.abs(use.shockTravelMm - sum)).toBeLessThan(0.01);
+      expect(fitmentProblems(complete({ rearLeverageRatio: null, rearLeverageCurve: curve, rearWheelTravelMm: 290, shockStrokeMm: 100 })).rearLeverageCurve).toBeUndefined();
+      expect(fitmentProblems(complete({ rearLeverageRatio: null, rearLeverageCurve: curve, rearWheelTravelMm: 290, shockStrokeMm: 95 })).rearLeverageCurve).toMatch(/more than its 95 mm stroke/);
+    });
+
+    it('more than 15 % of the stroke unused is a warning, not a refusal', () => {
+      const loose = complete({ rearWheelTravelMm: 200, rearLeverageRatio: 2.6, shockStrokeMm: 95 });
+      expect(fitmentProblems(loose).shockStrokeMm).toBeUndefined();
+      expect(fitmentWarnings(loose).shockStrokeMm).toMatch(/uses 76\.9 of its 95 mm stroke \(81 %\)/);
+      expect(fitmentWarnings(complete({ rearWheelTravelMm: 200, rearLeverageRatio: 2.6, shockStrokeMm: 80 })).shockStrokeMm).toBeUndefined();
+    });
+
+    it('waits while a figure is blank', () => {
+      expect(fitmentProblems(complete({ shockStrokeMm: 30, rearLeverageRatio: null }))).toEqual({});
+    });
+  });
+
+  describe('load stations against the wheelbase', () => {
+    const stations = (rider: number, passenger: number) => complete({ wheelbaseMm: 1500, loadStations: [{ station: 'rider', positionMm: rider }, { station: 'passenger', positionMm: passenger }] });
+
+    it('a rider seat at or behind the rear axle, or at the front axle, is refused', () => {
+      expect(fitmentProblems(stations(1500, 1600))['loadStations.0.positionMm']).toMatch(/between the axles/);
+      expect(fitmentProblems(stations(0, 1200))['loadStations.0.positionMm']).toMatch(/between the axles/);
+      expect(fitmentProblems(stations(870, 1200))).toEqual({});
+    });
+
+    it('a passenger at or ahead of the rider is refused on the passenger seat', () => {
+      expect(fitmentProblems(stations(870, 870))).toEqual({ 'loadStations.1.positionMm': "The passenger sits behind the rider, further back than the rider's 870 mm." });
+    });
+  });
+
+  it('the stock fork preload lies within the fork preload range', () => {
+    expect(fitmentProblems(complete({ forkStockPreloadMm: 25 })).forkStockPreloadMm).toBe('The stock preload lies within the fork preload range.');
+    expect(fitmentProblems(complete({ forkStockPreloadMm: 12 })).forkStockPreloadMm).toBeUndefined();
+  });
+
+  it('a fork without an adjuster and no stock spacer is a warning', () => {
+    expect(fitmentWarnings({ ...complete(), forkAdjusterPitchMm: null, forkStockSpacerMm: null }).forkStockSpacerMm).toMatch(/spacer/);
+    expect(fitmentWarnings({ ...complete(), forkAdjusterPitchMm: null, forkStockSpacerMm: 110 }).forkStockSpacerMm).toBeUndefined();
   });
 
   it('a leverage curve must rise in wheel travel, and blank points wait', () => {

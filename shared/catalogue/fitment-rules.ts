@@ -1,5 +1,5 @@
 // Fitment rules across fields, free of class-validator so the staff form runs the server's own checks as staff type.
-import { createLeverageCurve } from '../engine/leverage';
+import { createLeverageCurve, shockTravelAt, type LeverageCurve } from '../engine/leverage';
 import { rearRequiredRate } from '../engine/rear';
 import { g } from '../units';
 import { riderRanges } from './ranges';
@@ -45,8 +45,14 @@ export interface FitmentRuleFields {
   forkSpringFreeLengthMinMm: N;
   forkSpringFreeLengthMaxMm: N;
   forkTravelMm: N;
+  forkStockPreloadMm?: N;
   sag?: { front?: SagEndRule; rear?: SagEndRule };
 }
+
+/** A ratio or curve may ask the shock for at most this share more than its stroke at full wheel travel (rounding in makers' figures). */
+export const strokeOverrunShare = 0.01;
+/** More than this share of the stroke left unused at full wheel travel is worth a second look. */
+export const strokeUnusedShare = 0.15;
 
 const isNum = (v: N): v is number => typeof v === 'number' && Number.isFinite(v);
 
@@ -83,9 +89,8 @@ export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
   if (below(f.forkPreloadMaxMm, f.forkPreloadMinMm)) p.forkPreloadMaxMm = 'The maximum is not below the minimum.';
   if (below(f.shockSpringFreeLengthMaxMm, f.shockSpringFreeLengthMinMm)) p.shockSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
   if (below(f.forkSpringFreeLengthMaxMm, f.forkSpringFreeLengthMinMm)) p.forkSpringFreeLengthMaxMm = 'The longest is not below the shortest.';
-  if (isNum(f.rearWheelTravelMm) && isNum(f.shockStrokeMm)) {
-    const ratio = f.rearWheelTravelMm / f.shockStrokeMm;
-    if (ratio < 1 || ratio > 5) p.shockStrokeMm = 'Wheel travel over shock stroke should be between 1 and 5.';
+  if (below(f.forkPreloadMaxMm, f.forkStockPreloadMm) || below(f.forkStockPreloadMm, f.forkPreloadMinMm)) {
+    p.forkStockPreloadMm = 'The stock preload lies within the fork preload range.';
   }
   f.rearLeverageCurve?.forEach((pt, i) => {
     const prev = f.rearLeverageCurve?.[i - 1];
@@ -99,11 +104,18 @@ export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
     seen.add(s.station);
   });
   if (!seen.has('rider')) p.loadStations = 'The rider seat is needed.';
+  Object.assign(p, stationProblems(f));
   const sprung = f.massInput === 'wet' ? sprungFromWetOrNull(f) : null;
   if (sprung && sprung.frontSprungMassKg < 20) p.frontUnsprungMassKg = 'This leaves less than 20 kg sprung on the front.';
   if (sprung && sprung.rearSprungMassKg < 20) p.rearUnsprungMassKg = 'This leaves less than 20 kg sprung on the rear.';
   const steep = steepCurveProblem(f, f.massInput === 'wet' ? sprung?.rearSprungMassKg : f.rearSprungMassKg);
   if (steep && !p.rearLeverageCurve) p.rearLeverageCurve = steep;
+  // After the steep-curve rule: a curve no spring can use is named for that first.
+  const stroke = strokeUse(f);
+  if (stroke && !p[stroke.field] && stroke.shockTravelMm > stroke.strokeMm * (1 + strokeOverrunShare)) {
+    p[stroke.field] =
+      `At full wheel travel this ${stroke.field === 'rearLeverageRatio' ? 'ratio' : 'curve'} moves the shock ${mm1(stroke.shockTravelMm)} mm, more than its ${mm1(stroke.strokeMm)} mm stroke: check the ratio, the wheel travel and the stroke.`;
+  }
   for (const end of ['front', 'rear'] as const) {
     const e = f.sag?.[end];
     if (!e) continue;
@@ -119,6 +131,68 @@ export function fitmentProblems(f: FitmentRuleFields): Record<string, string> {
     }
   }
   return p;
+}
+
+const mm1 = (v: number) => String(Math.round(v * 10) / 10);
+
+/** The leverage as a curve, or undefined while the form lacks a usable ratio or curve. */
+function leverageOf(f: Pick<FitmentRuleFields, 'rearLeverageRatio' | 'rearLeverageCurve'>): { curve: LeverageCurve; field: 'rearLeverageRatio' | 'rearLeverageCurve' } | undefined {
+  if (f.rearLeverageCurve) {
+    const points: { wheelTravelMm: number; ratio: number }[] = [];
+    for (const pt of f.rearLeverageCurve) {
+      const last = points[points.length - 1];
+      if (!isNum(pt.wheelTravelMm) || !isNum(pt.ratio) || !(pt.ratio > 0) || (last && !(pt.wheelTravelMm > last.wheelTravelMm))) return undefined;
+      points.push({ wheelTravelMm: pt.wheelTravelMm, ratio: pt.ratio });
+    }
+    return points.length ? { curve: createLeverageCurve(points), field: 'rearLeverageCurve' } : undefined;
+  }
+  return isNum(f.rearLeverageRatio) && f.rearLeverageRatio > 0 ? { curve: createLeverageCurve(f.rearLeverageRatio), field: 'rearLeverageRatio' } : undefined;
+}
+
+/**
+ * How much of the shock's stroke the leverage uses at full wheel travel: travel ÷ ratio, or ∫ ds / LR(s) over the
+ * travel for a curve (exact for the piecewise-linear curve). Undefined while a figure is missing.
+ * @example strokeUse({ rearLeverageRatio: 2.6, rearWheelTravelMm: 210, shockStrokeMm: 76 }) // { shockTravelMm: 80.77, strokeMm: 76, … }
+ */
+export function strokeUse(f: Pick<FitmentRuleFields, 'rearLeverageRatio' | 'rearLeverageCurve' | 'rearWheelTravelMm' | 'shockStrokeMm'>):
+  { shockTravelMm: number; strokeMm: number; usedShare: number; field: 'rearLeverageRatio' | 'rearLeverageCurve' } | undefined {
+  const lev = leverageOf(f);
+  if (!lev || !isNum(f.rearWheelTravelMm) || !isNum(f.shockStrokeMm) || !(f.shockStrokeMm > 0)) return undefined;
+  const shockTravelMm = shockTravelAt(lev.curve, f.rearWheelTravelMm) - shockTravelAt(lev.curve, 0);
+  return { shockTravelMm, strokeMm: f.shockStrokeMm, usedShare: shockTravelMm / f.shockStrokeMm, field: lev.field };
+}
+
+/** The rider's seat sits between the axles and a passenger's behind the rider; positions are from the front axle. */
+function stationProblems(f: FitmentRuleFields): Record<string, string> {
+  const p: Record<string, string> = {};
+  const i = f.loadStations.findIndex((s) => s.station === 'rider');
+  const j = f.loadStations.findIndex((s) => s.station === 'passenger');
+  const rider = f.loadStations[i]?.positionMm;
+  const passenger = f.loadStations[j]?.positionMm;
+  if (isNum(rider) && isNum(f.wheelbaseMm) && !(rider > 0 && rider < f.wheelbaseMm)) {
+    p[`loadStations.${i}.positionMm`] = `The rider's seat sits between the axles: more than 0 and less than the ${mm1(f.wheelbaseMm)} mm wheelbase from the front axle.`;
+  }
+  if (isNum(passenger) && isNum(rider) && !(passenger > rider)) {
+    p[`loadStations.${j}.positionMm`] = `The passenger sits behind the rider, further back than the rider's ${mm1(rider)} mm.`;
+  }
+  return p;
+}
+
+/**
+ * What staff should look at twice but may save: a leverage that leaves more than 15 % of the shock's stroke unused at
+ * full wheel travel, and a fork without an adjuster whose stock spacer is not known (no spacer length can be given).
+ * @example fitmentWarnings({ ...input, shockStrokeMm: 100 }) // { shockStrokeMm: 'At full wheel travel the shock uses 76.9 of its 100 mm stroke …' }
+ */
+export function fitmentWarnings(f: FitmentRuleFields & { forkAdjusterPitchMm?: N; forkStockSpacerMm?: N }): Record<string, string> {
+  const w: Record<string, string> = {};
+  const stroke = strokeUse(f);
+  if (stroke && stroke.usedShare < 1 - strokeUnusedShare) {
+    w.shockStrokeMm = `At full wheel travel the shock uses ${mm1(stroke.shockTravelMm)} of its ${mm1(stroke.strokeMm)} mm stroke (${Math.round(stroke.usedShare * 100)} %); check the ratio, the wheel travel and the stroke.`;
+  }
+  if ('forkAdjusterPitchMm' in f && f.forkAdjusterPitchMm == null && f.forkStockSpacerMm == null) {
+    w.forkStockSpacerMm = 'This fork has no preload adjuster: give the stock spacer length so riders are told the spacer to cut.';
+  }
+  return w;
 }
 
 const styleNames = { road: 'road', adventure: 'adventure', offRoad: 'off-road' } as const;

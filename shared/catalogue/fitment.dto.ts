@@ -485,4 +485,4 @@ export class FitmentInputDto {
 }
 
 // The cross-field rules live in a decorator-free module the client loads too; re-exported for the server.
-export { fitmentProblems, sprungFromWet, sprungFromWetOrNull, type FitmentRuleFields } from './fitment-rules';
+export { fitmentProblems, fitmentWarnings, sprungFromWet, sprungFromWetOrNull, strokeUse, type FitmentRuleFields } from './fitment-rules';

@@ -38,6 +38,7 @@ import {
   type SpringEndType,
 } from './common';
 import { springRanges, withUnit, type FieldRange } from './ranges';
+import type { SolidStressCheck } from '../engine/spring-strength';
 
 // ---------- responses ----------
 
@@ -60,6 +61,11 @@ export interface SpringGeometryCheckDto {
   rateMismatch: boolean;
   springIndex: number;
   activeCoils: number;
+  /**
+   * Shear stress with the spring closed to solid against the allowable for its wire (Shigley 10th ed. Tables 10-4 and
+   * 10-6, set removed); null for a material those tables do not list. `exceeds` flags a spring that takes a set if closed.
+   */
+  solidStress: SolidStressCheck | null;
 }
 
 export interface SpringDetailsDto {

@@ -59,3 +59,4 @@ export {
   type SpringMaterialKey,
 } from './geometry';
 export { checkSag, averageReading, DEFAULT_SAG_TOLERANCE_MM } from './sag';
+export { catalogueSolidStress, checkSolidStress, minTensileStrength, TENSILE_STRENGTH_BANDS, ALLOWABLE_SHARE_SET_REMOVED, type SolidStressCheck } from './spring-strength';

@@ -91,3 +91,28 @@ export function checkSolidStress(s: {
   const allowableMPa = share * strength.sutMPa;
   return { shearStressAtSolidMPa: tau, minTensileStrengthMPa: strength.sutMPa, allowableMPa, exceeds: tau > allowableMPa, withinTableSizes: strength.withinTableSizes };
 }
+
+/**
+ * `checkSolidStress` from a spring as the catalogue keeps it: outer diameter, the geometry's own rate and the solid
+ * length (stated or computed). The product API and the back-office editor both call this one function.
+ * @example catalogueSolidStress({ material: 'chrome-silicon', wireDiameterMm: 5, outerDiameterMm: 37, computedRateNPerMm: 9, freeLengthMm: 300, solidLengthMm: 150 })
+ */
+export function catalogueSolidStress(s: {
+  material: string;
+  wireDiameterMm: number;
+  outerDiameterMm: number;
+  computedRateNPerMm: number;
+  freeLengthMm: number;
+  solidLengthMm: number;
+}): SolidStressCheck | null {
+  return (
+    checkSolidStress({
+      material: s.material,
+      wireDiameterMm: s.wireDiameterMm,
+      meanDiameterMm: s.outerDiameterMm - s.wireDiameterMm,
+      rateNPerMm: s.computedRateNPerMm,
+      freeLengthMm: s.freeLengthMm,
+      solidLengthMm: s.solidLengthMm,
+    }) ?? null
+  );
+}

@@ -1,6 +1,6 @@
 import type { FitmentDto, LoadStationKind, SagEndDto } from '@shared/catalogue';
 import { defaultStaticSagToleranceMm } from '@shared/catalogue/constants';
-import { fitmentProblems, type FitmentRuleFields } from '@shared/catalogue/fitment-rules';
+import { fitmentProblems, fitmentWarnings, type FitmentRuleFields } from '@shared/catalogue/fitment-rules';
 import { fitmentRanges, withUnit, type FieldRange } from '@shared/catalogue/ranges';
 import { stationKinds } from '../catalogue-labels';
 import type { FitmentInput } from '../api/staff-catalogue';
@@ -219,6 +219,11 @@ function ruleFieldsFromDraft(d: FitmentDraft): FitmentRuleFields {
     rearLeverageRatio: d.leverageMode === 'ratio' ? d.rearLeverageRatio : null,
     rearLeverageCurve: d.leverageMode === 'curve' ? d.rearLeverageCurve : null,
   };
+}
+
+/** The shared rule's warnings for the draft: what staff may save but should look at twice. */
+export function fitmentDraftWarnings(d: FitmentDraft): Record<string, string> {
+  return fitmentWarnings({ ...ruleFieldsFromDraft(d), forkAdjusterPitchMm: d.forkAdjusterPitchMm, forkStockSpacerMm: d.forkStockSpacerMm });
 }
 
 /** One number against its spec, in the server's words; '' when fine. */

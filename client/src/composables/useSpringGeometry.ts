@@ -1,5 +1,5 @@
 import { computed, toValue, type MaybeRefOrGetter } from 'vue';
-import { computeSpringGeometry, type SpringEndType, type SpringGeometryResult } from '@shared/engine';
+import { catalogueSolidStress, computeSpringGeometry, type SolidStressCheck, type SpringEndType, type SpringGeometryResult } from '@shared/engine';
 
 /** A stated rate further than this from the geometry's rate is flagged to staff (the 5 %). */
 export const RATE_DISAGREEMENT_LIMIT = 0.05;
@@ -13,6 +13,8 @@ export interface SpringGeometryDraft {
   material: string | null;
   freeLengthMm?: number | null;
   rateNPerMm?: number | null;
+  /** Stated solid length; the computed one stands when empty. */
+  solidLengthMm?: number | null;
 }
 
 export interface SpringGeometryLive {
@@ -24,13 +26,15 @@ export interface SpringGeometryLive {
   rateFlagged: boolean;
   /** Free length not above the solid length: the spring cannot compress at all. */
   solidAboveFree: boolean;
+  /** Stress closed to solid against the wire's allowable (the product API's own check); null without a free length or table row. */
+  solidStress: SolidStressCheck | null;
 }
 
 const positive = (v: number | null | undefined): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
 
 /** The shared engine's spring geometry for a draft, recomputed on every keystroke. */
 export function evaluateSpringDraft(d: SpringGeometryDraft): SpringGeometryLive {
-  const none = (problem: string): SpringGeometryLive => ({ result: null, problem, rateDifference: null, rateFlagged: false, solidAboveFree: false });
+  const none = (problem: string): SpringGeometryLive => ({ result: null, problem, rateDifference: null, rateFlagged: false, solidAboveFree: false, solidStress: null });
   if (!positive(d.wireDiameterMm) || !positive(d.outerDiameterMm) || !positive(d.totalCoils)) {
     return none('Enter the wire diameter, outer diameter and total coils to see the computed rate.');
   }
@@ -59,6 +63,17 @@ export function evaluateSpringDraft(d: SpringGeometryDraft): SpringGeometryLive 
     rateDifference,
     rateFlagged: rateDifference !== null && Math.abs(rateDifference) > RATE_DISAGREEMENT_LIMIT,
     solidAboveFree: positive(d.freeLengthMm) && d.freeLengthMm <= result.solidLengthMm,
+    solidStress:
+      positive(d.freeLengthMm) && d.freeLengthMm > (positive(d.solidLengthMm) ? d.solidLengthMm : result.solidLengthMm)
+        ? catalogueSolidStress({
+            material: d.material,
+            wireDiameterMm: d.wireDiameterMm,
+            outerDiameterMm: d.outerDiameterMm,
+            computedRateNPerMm: result.rateNPerMm,
+            freeLengthMm: d.freeLengthMm,
+            solidLengthMm: positive(d.solidLengthMm) ? d.solidLengthMm : result.solidLengthMm,
+          })
+        : null,
   };
 }
 
