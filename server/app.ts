@@ -11,12 +11,14 @@ import { productImageFiles, publicProductRoutes, staffCatalogueRoutes, staffProd
 import { getConfig, type Config } from './config';
 import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
+import { apiDescriptionRoutes } from './openapi/openapi.routes';
 import { recommendationRoutes } from './recommendations/recommendations.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
 import { pageWithNonce, styleNonce } from './http/content-security';
 import { originCheck } from './http/origin-check';
+import { clientPageMark, mark } from './http/route-meta';
 
 /** Builds the whole app; index.ts listens, tests listen on port 0. */
 export function createApp(config: Config = getConfig()): Express {
@@ -84,6 +86,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/products', publicProductRoutes());
   api.use('/staff/products', staffProductRoutes(config));
   api.use('/staff', staffCatalogueRoutes());
+  api.use(apiDescriptionRoutes());
   api.use(notFoundApi);
   app.use('/api', api);
   // Before the SPA fallback, so a missing image is a 404 and not the app's index page.
@@ -99,16 +102,16 @@ function serveClient(app: Express, config: Config): void {
   if (!existsSync(index)) return;
   const page = readFileSync(index, 'utf8');
   // Each response carries its own nonce, so the page is never stored or revalidated against an older copy.
-  const sendPage: express.RequestHandler = (_req, res) => {
+  const sendPage: express.RequestHandler = mark((_req, res) => {
     res.setHeader('Cache-Control', 'no-store');
     res.type('html').send(pageWithNonce(page, res));
-  };
+  }, { [clientPageMark]: true });
   app.use('/assets', express.static(join(config.clientDist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
   app.get('/index.html', sendPage);
   app.use(express.static(config.clientDist, { index: false, maxAge: '1h' }));
   // Client-side routes get the SPA; a path with an extension is a missing file and stays 404.
-  app.get('/{*splat}', (req, res, next) => {
+  app.get('/{*splat}', mark((req, res, next) => {
     if (extname(req.path)) return next();
     sendPage(req, res, next);
-  });
+  }, { [clientPageMark]: true }));
 }

@@ -94,6 +94,11 @@ export function toDto<T extends object>(cls: ClassConstructor<T>, input: Record<
 
 /** Parses req.body into the DTO class and refuses it with per-field messages when it does not fit. */
 export async function parseBody<T extends object>(cls: ClassConstructor<T>, body: unknown): Promise<T> {
+  return bodyAs(cls, body);
+}
+
+/** parseBody without the promise, for the endpoint wrapper on the hot routes. */
+export function bodyAs<T extends object>(cls: ClassConstructor<T>, body: unknown): T {
   if (body === null || typeof body !== 'object' || Array.isArray(body)) {
     throw AppError.validation('The request body must be a JSON object.', { body: 'must be a JSON object' });
   }
@@ -112,6 +117,11 @@ export function body<T extends object>(cls: ClassConstructor<T>): RequestHandler
 
 /** Parses a query string into the DTO class; repeated or unknown parameters are refused per field. */
 export async function parseQuery<T extends object>(cls: ClassConstructor<T>, query: unknown): Promise<T> {
+  return queryAs(cls, query);
+}
+
+/** parseQuery without the promise. */
+export function queryAs<T extends object>(cls: ClassConstructor<T>, query: unknown): T {
   const q = (query ?? {}) as Record<string, unknown>;
   const repeated = Object.entries(q).filter(([, v]) => typeof v !== 'string');
   if (repeated.length) {
