@@ -3,7 +3,7 @@ import type { ClassConstructor } from 'class-transformer';
 import { isStorableText, unstorableTextMessage } from '../../shared/dto/validation';
 import { AppError } from '../errors';
 import { classValidatorParse } from './validation/class-validator-parse';
-import { compiledParse, isCompilable, type Parsed } from './validation/compiled-validator';
+import { compiledParse, isCompilable, listsWhereObjectsBelong, type Parsed } from './validation/compiled-validator';
 
 // Far deeper than any request DTO nests; class-transformer recurses per level and would overflow the stack.
 const maxDepth = 32;
@@ -89,7 +89,10 @@ function refuseUnreadable(input: unknown, message: string): void {
  * per class, or through class-transformer and class-validator for a class that form cannot mirror.
  */
 export function toDto<T extends object>(cls: ClassConstructor<T>, input: Record<string, unknown>): Parsed<T> {
-  return isCompilable(cls) ? compiledParse(cls as new () => T, input) : classValidatorParse(cls as new () => T, input);
+  if (!isCompilable(cls)) return classValidatorParse(cls as new () => T, input);
+  const misplaced = listsWhereObjectsBelong(cls, input);
+  if (Object.keys(misplaced).length) return { ok: false, fields: misplaced };
+  return compiledParse(cls as new () => T, input);
 }
 
 /** Parses req.body into the DTO class and refuses it with per-field messages when it does not fit. */

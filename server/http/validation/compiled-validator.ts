@@ -47,6 +47,8 @@ interface ClassPlan {
   skip: Set<string>;
   /** @Type conversions by property. */
   convert: Map<string, (value: unknown) => unknown>;
+  /** Properties whose @Type is a class: where objects of that class belong. */
+  nestedClass: Map<string, Function>;
 }
 
 export type Parsed<T> = { ok: true; value: T } | { ok: false; fields: Record<string, string> };
@@ -60,7 +62,7 @@ const plans = new Map<Function, ClassPlan>();
 function planOf(cls: Function): ClassPlan {
   let plan = plans.get(cls);
   if (!plan) {
-    plan = { cls: cls as Ctor, hasMetadata: false, known: new Set(), props: [], skip: new Set(), convert: new Map() };
+    plan = { cls: cls as Ctor, hasMetadata: false, known: new Set(), props: [], skip: new Set(), convert: new Map(), nestedClass: new Map() };
     // Registered before it is filled, so a class that nests itself finds its own plan.
     plans.set(cls, plan);
     try {
@@ -102,7 +104,13 @@ function fillPlan(plan: ClassPlan): void {
     const typeMeta = transformerStorage.findTypeMetadata(cls, name);
     if (typeMeta) {
       if (typeMeta.options?.discriminator) throw new NotCompilable(`${cls.name}.${name} uses a discriminator`);
-      plan.convert.set(name, converterFor(typeMeta.typeFunction({ newObject: {}, object: {}, property: name }) as Function));
+      const type = typeMeta.typeFunction({ newObject: {}, object: {}, property: name }) as Function;
+      plan.convert.set(name, converterFor(type));
+      if (![Number, String, Boolean, Date].includes(type as never)) {
+        plan.nestedClass.set(name, type);
+        // Planned now, so a nested class the runner cannot mirror sends the whole DTO the libraries' way.
+        planOf(type);
+      }
     }
   }
   plan.skip = skippedKeys(cls);
@@ -296,6 +304,34 @@ function validateObject(object: object, prefix: string, out: Out): boolean {
     }
   }
   return ok;
+}
+
+export const listInListMessage = 'Must be an object, not a list.';
+
+/**
+ * Where a DTO expects objects of a nested class, a list inside the list: class-validator descends into it and
+ * finds nothing wrong (an empty one passes whole), so the use case would get a list for an object. Refused by
+ * path, before either validator runs.
+ */
+export function listsWhereObjectsBelong(cls: Function, input: Obj): Record<string, string> {
+  const out: Record<string, string> = {};
+  const walk = (plan: ClassPlan, o: Obj, prefix: string): void => {
+    for (const [key, nested] of plan.nestedClass) {
+      const v = o[key];
+      if (v === null || typeof v !== 'object') continue;
+      const at = join(prefix, key);
+      if (!Array.isArray(v)) {
+        walk(planOf(nested), v as Obj, at);
+        continue;
+      }
+      v.forEach((item, i) => {
+        if (Array.isArray(item)) setField(out, `${at}.${i}`, listInListMessage);
+        else if (item !== null && typeof item === 'object') walk(planOf(nested), item as Obj, `${at}.${i}`);
+      });
+    }
+  };
+  walk(planOf(cls), input, '');
+  return out;
 }
 
 const compilable = new Map<Function, boolean>();
