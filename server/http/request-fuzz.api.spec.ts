@@ -3,10 +3,10 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { forkSpringExample, rearSpringExample } from '../../shared/engine/examples';
 import { requestSchemas } from '../openapi/request-schemas';
 import { fitmentInput, springInput } from '../test/catalogue-factories';
 import { createUser, testApp, userWithToken } from '../test/factories';
+import { requestExamples } from '../test/request-examples';
 import { bodiesFor, brokenJson, fitting, hostile, toJsonText } from '../test/request-arbitraries';
 import { apiRoutes, type MountedRoute } from './route-registry';
 
@@ -24,13 +24,8 @@ const { app, config } = testApp({ calcRateLimitPerMinute: 100_000_000, loginLimi
 const routes = apiRoutes(app).filter((r) => r.spec?.body || r.spec?.query || r.spec?.content);
 const schemas = requestSchemas();
 
-/** Known good bodies to mutate, beside the ones made from the schemas (cross-field rules make those often invalid). */
-const examples: Record<string, () => unknown[]> = {
-  RearSpringRequestDto: () => [rearSpringExample()],
-  ForkSpringRequestDto: () => [forkSpringExample()],
-  FitmentInputDto: () => [fitmentInput()],
-  ProductInputDto: () => [springInput()],
-};
+// Known good bodies to mutate, beside the ones made from the schemas (cross-field rules make those often invalid).
+const examples = requestExamples;
 
 let server: Server;
 let base: string;
