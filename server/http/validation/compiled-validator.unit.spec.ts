@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { requestSchemas } from '../../openapi/request-schemas';
 import { testApp } from '../../test/factories';
-import { bodiesFor, fitting } from '../../test/request-arbitraries';
+import { bodiesFor, fitting, toJsonText } from '../../test/request-arbitraries';
 import { requestExamples } from '../../test/request-examples';
 import { apiRoutes } from '../route-registry';
 import { toDto, unreadableFields } from '../validate';
@@ -28,12 +28,16 @@ const runs = Number(process.env.AGREEMENT_RUNS ?? 400);
 
 type Obj = Record<string, unknown>;
 const isObj = (v: unknown): v is Obj => v !== null && typeof v === 'object' && !Array.isArray(v);
-/** A query string arrives as text: the corpus for a query DTO is text too. */
-const asQuery = (v: unknown): unknown => (isObj(v) ? Object.fromEntries(Object.entries(v).map(([k, x]) => [k, typeof x === 'object' && x !== null ? JSON.stringify(x) : String(x)])) : v);
+
+/** A query string arrives as text, in an object without a prototype (as Node's query parser makes it). */
+const asQuery = (v: unknown): unknown =>
+  isObj(v) ? Object.assign(Object.create(null) as object, Object.fromEntries(Object.entries(v).map(([k, x]) => [k, typeof x === 'object' && x !== null ? JSON.stringify(x) : String(x)]))) : v;
+/** A body arrives as JSON text and is read by JSON.parse, as express.json does. */
+const asBody = (v: unknown): unknown => JSON.parse(toJsonText(v));
 
 /** The libraries' path behind the same refusals that come before any validator (unreadable text, depth, object machinery, lists in lists). */
 function viaLibraries(cls: new () => object, body: Obj) {
-  const refused = { ...unreadableFields(body) };
+  const refused = unreadableFields(body);
   if (Object.keys(refused).length) return { ok: false as const, fields: refused };
   const misplaced = listsWhereObjectsBelong(cls, body);
   if (Object.keys(misplaced).length) return { ok: false as const, fields: misplaced };
@@ -59,7 +63,7 @@ describe('the compiled runner and class-validator agree on every request DTO', (
     let invalid = 0;
     fc.assert(
       fc.property(corpus, (generated) => {
-        const body = query ? asQuery(generated) : generated;
+        const body = query ? asQuery(generated) : asBody(generated);
         if (!isObj(body)) return;
         const expected = viaLibraries(cls, body);
         const actual = viaCompiled(cls, body);
