@@ -52,7 +52,7 @@ const notAFieldMessage = (key: string) => `“${key}” is not a field this requ
 const setField = (o: Record<string, string>, k: string, v: string) => Object.defineProperty(o, k, { value: v, enumerable: true, writable: true, configurable: true });
 
 /** The same walk without building paths: the common, clean request pays a few microseconds, not a path per value. */
-function hasUnreadable(root: unknown): boolean {
+export function hasUnreadable(root: unknown): boolean {
   const values: unknown[] = [root];
   const depths: number[] = [0];
   while (values.length) {
