@@ -19,6 +19,8 @@ import { apiRoutes, type MountedRoute } from './route-registry';
 const runs = Number(process.env.FUZZ_RUNS ?? 300);
 // Requests in flight at once: the database's waits overlap, so the default run stays short on two cores.
 const batch = 6;
+// A longer run takes longer per route: about 40 ms a case on a busy two-core machine, never under the default 20 s.
+const timeoutMs = Math.max(20_000, runs * 40);
 // Limits high enough that the fuzzer reaches validation instead of the rate limiter.
 const { app, config } = testApp({ calcRateLimitPerMinute: 100_000_000, loginLimitPerIp: 1_000_000, loginLimitPerAccount: 1_000_000 });
 const routes = apiRoutes(app).filter((r) => r.spec?.body || r.spec?.query || r.spec?.content);
@@ -128,7 +130,7 @@ describe('no request body or query string reaches a 5xx', () => {
     );
     // Still answering: nothing took the server down.
     expect((await fetch(`${base}/api/health`)).status).toBe(200);
-  });
+  }, timeoutMs);
 
   afterAll(() => {
     const lines = [...tally].map(([name, s]) => `${name}: ${[...s].sort((a, b) => a[0] - b[0]).map(([k, v]) => `${k}×${v}`).join(' ')}`);

@@ -1,4 +1,3 @@
-import type { RequestHandler } from 'express';
 import type { ClassConstructor } from 'class-transformer';
 import { isStorableText, unstorableTextMessage } from '../../shared/dto/validation';
 import { AppError } from '../errors';
@@ -109,13 +108,6 @@ export function bodyAs<T extends object>(cls: ClassConstructor<T>, body: unknown
   const parsed = toDto(cls, body as Record<string, unknown>);
   if (!parsed.ok) throw AppError.validation('Some fields need attention.', parsed.fields);
   return parsed.value;
-}
-
-export function body<T extends object>(cls: ClassConstructor<T>): RequestHandler {
-  return async (req, _res, next) => {
-    req.body = await parseBody(cls, req.body);
-    next();
-  };
 }
 
 /** Parses a query string into the DTO class; repeated or unknown parameters are refused per field. */
