@@ -7,8 +7,9 @@ import type { Role } from '../../shared/roles';
 export const rolesMark = Symbol('loadline.roles');
 export const rateLimitedMark = Symbol('loadline.rate-limited');
 export const clientPageMark = Symbol('loadline.client-page');
+export const crossSiteCheckMark = Symbol('loadline.cross-site-check');
 
-type Marked = { [rolesMark]?: readonly Role[]; [rateLimitedMark]?: true; [clientPageMark]?: true };
+type Marked = { [rolesMark]?: readonly Role[]; [rateLimitedMark]?: true; [clientPageMark]?: true; [crossSiteCheckMark]?: true };
 
 export function mark<F extends Function>(fn: F, marks: Marked): F {
   return Object.assign(fn, marks);
@@ -16,4 +17,5 @@ export function mark<F extends Function>(fn: F, marks: Marked): F {
 
 export const rolesOf = (fn: unknown): readonly Role[] | undefined => (fn as Marked | undefined)?.[rolesMark];
 export const isRateLimited = (fn: unknown): boolean => (fn as Marked | undefined)?.[rateLimitedMark] === true;
+export const checksCrossSite = (fn: unknown): boolean => (fn as Marked | undefined)?.[crossSiteCheckMark] === true;
 export const isClientPage = (fn: unknown): boolean => (fn as Marked | undefined)?.[clientPageMark] === true;

@@ -1,7 +1,7 @@
 import type { Application as Express } from 'express';
 import type { Role } from '../../shared/roles';
 import { specOf, type EndpointSpec } from './endpoint';
-import { isClientPage, isRateLimited, rolesOf } from './route-meta';
+import { checksCrossSite, isClientPage, isRateLimited, rolesOf } from './route-meta';
 
 /** One method and path the app answers, with what its spec and the middleware before it say. */
 export interface MountedRoute {
@@ -12,6 +12,8 @@ export interface MountedRoute {
   /** Roles the router lets through; undefined when anyone may call (or any signed-in account, see spec.signedIn). */
   roles: readonly Role[] | undefined;
   rateLimited: boolean;
+  /** Behind the origin check: a state-changing request from another site is refused (403). */
+  crossSiteChecked: boolean;
   /** The single-page app's own pages, not part of the API. */
   clientPage: boolean;
 }
@@ -28,6 +30,7 @@ interface Scoped {
   under: string;
   roles?: readonly Role[];
   rateLimited?: boolean;
+  crossSiteChecked?: boolean;
 }
 
 const joinPath = (a: string, b: string): string => (`${a.replace(/\/$/, '')}/${b.replace(/^\//, '')}`.replace(/\/$/, '') || '/');
@@ -57,14 +60,17 @@ export function mountedRoutes(app: Express): MountedRoute[] {
         const applying = here.filter((s) => within(path, s.under));
         const roles = applying.reduce<readonly Role[] | undefined>((r, s) => s.roles ?? r, undefined);
         const rateLimited = applying.some((s) => s.rateLimited);
+        const crossSiteChecked = applying.some((s) => s.crossSiteChecked);
         for (const method of new Set(layer.route.stack.map((l) => l.method).filter((m): m is string => !!m))) {
-          out.push({ method: method.toUpperCase(), path, spec, roles, rateLimited, clientPage });
+          out.push({ method: method.toUpperCase(), path, spec, roles, rateLimited, crossSiteChecked, clientPage });
         }
       } else if (layer.handle.stack) {
         walk(layer.handle.stack, at, scoped);
       } else {
         const roles = rolesOf(layer.handle);
-        if (roles || isRateLimited(layer.handle)) scoped.push({ under: at, roles, rateLimited: isRateLimited(layer.handle) });
+        if (roles || isRateLimited(layer.handle) || checksCrossSite(layer.handle)) {
+          scoped.push({ under: at, roles, rateLimited: isRateLimited(layer.handle), crossSiteChecked: checksCrossSite(layer.handle) });
+        }
       }
     }
   };

@@ -61,7 +61,7 @@ function operation(route: MountedRoute, spec: EndpointSpec | undefined, schemas:
         : { description: 'The answer, as JSON.', content: { 'application/json': { schema: { type: ['object', 'array'] } } } };
   if (s.body || s.query || s.content) responses['400'] = responseRef('ValidationFailed');
   if (signedIn) responses['401'] = responseRef('Unauthorised');
-  if (route.roles || route.method !== 'GET') responses['403'] = responseRef('Forbidden');
+  if (route.roles || (route.crossSiteChecked && route.method !== 'GET')) responses['403'] = responseRef('Forbidden');
   if (s.ids || paramNames(route.path).length) responses['404'] = responseRef('NotFound');
   if (s.body || s.content) responses['413'] = responseRef('TooLarge');
   if (route.rateLimited) responses['429'] = responseRef('RateLimited');

@@ -70,6 +70,9 @@ describe('the API describes itself as OpenAPI 3.1, from its routes and DTO class
     const calc = doc.paths['/api/calculations/rear-spring']!.post!;
     expect(calc.security).toBeUndefined();
     expect(calc.responses['429']).toBeDefined();
+    // Mounted before the origin check, so never refused as cross-site; a signed-out write behind it can be.
+    expect(calc.responses['403']).toBeUndefined();
+    expect(doc.paths['/api/auth/logout']!.post!.responses['403']).toBeDefined();
     expect(doc.paths['/api/auth/me']!.get!.security).toBeDefined();
   });
 
