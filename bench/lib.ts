@@ -124,7 +124,7 @@ export async function compareWithBaseline(
   name: string,
   route: { url: string; bodies: object[] },
   opts: { connections?: number; durationS?: number; rounds?: number } = {},
-): Promise<{ route: Measured; baseline: Measured; ratio: number }> {
+): Promise<{ route: Measured; baseline: Measured; ratio: number; p99Ratio: number }> {
   const rounds = opts.rounds ?? Number(process.env.BENCH_ROUNDS ?? 3);
   const c = opts.connections ?? 50;
   const run = { connections: c, durationS: opts.durationS ?? 10 };
@@ -134,15 +134,17 @@ export async function compareWithBaseline(
     await cannon({ url: `${base.url}/baseline`, bodies: route.bodies, durationS: 2, connections: c });
     await cannon({ ...route, durationS: 2, connections: c });
     console.log(`\n${name} (${c} connections, ${run.durationS} s each, ${rounds} alternating rounds)`);
-    const results: { baseline: Measured; route: Measured; ratio: number }[] = [];
+    const results: { baseline: Measured; route: Measured; ratio: number; p99Ratio: number }[] = [];
     for (let i = 0; i < rounds; i++) {
       const baseline = await cannon({ url: `${base.url}/baseline`, bodies: route.bodies, ...run });
       const measured = await cannon({ ...route, ...run });
       const ratio = measured.requestsPerSec / baseline.requestsPerSec;
-      results.push({ baseline, route: measured, ratio });
+      // A p99 of 0 ms (autocannon rounds to whole ms) counts as 1 ms, so the ratio stays finite.
+      const p99Ratio = measured.p99Ms / Math.max(baseline.p99Ms, 1);
+      results.push({ baseline, route: measured, ratio, p99Ratio });
       console.log(
         `  round ${i + 1}: bare express ${baseline.requestsPerSec.toFixed(0).padStart(6)} req/s p99 ${String(baseline.p99Ms).padStart(3)} ms | ` +
-          `${name} ${measured.requestsPerSec.toFixed(0).padStart(6)} req/s p99 ${String(measured.p99Ms).padStart(3)} ms | ratio ${ratio.toFixed(3)}` +
+          `${name} ${measured.requestsPerSec.toFixed(0).padStart(6)} req/s p99 ${String(measured.p99Ms).padStart(3)} ms | ratio ${ratio.toFixed(3)}, p99 ${p99Ratio.toFixed(2)} x baseline` +
           (measured.errors || measured.non2xx ? ` | errors ${measured.errors}, non-2xx ${measured.non2xx}` : ''),
       );
     }
@@ -156,8 +158,9 @@ export async function compareWithBaseline(
         non2xx: results.reduce((s, r) => s + r.route.non2xx, 0),
       },
       ratio: pick((r) => r.ratio),
+      p99Ratio: pick((r) => r.p99Ratio),
     };
-    console.log(`  median: bare express ${summary.baseline.requestsPerSec.toFixed(0)} req/s p99 ${summary.baseline.p99Ms} ms; ${name} ${summary.route.requestsPerSec.toFixed(0)} req/s p99 ${summary.route.p99Ms} ms; ratio ${summary.ratio.toFixed(3)}`);
+    console.log(`  median: bare express ${summary.baseline.requestsPerSec.toFixed(0)} req/s p99 ${summary.baseline.p99Ms} ms; ${name} ${summary.route.requestsPerSec.toFixed(0)} req/s p99 ${summary.route.p99Ms} ms; ratio ${summary.ratio.toFixed(3)}, p99 ${summary.p99Ratio.toFixed(2)} x baseline`);
     if (summary.route.errors || summary.route.non2xx) console.log(`  errors ${summary.route.errors}, non-2xx ${summary.route.non2xx} (the figures do not count)`);
     return summary;
   } finally {

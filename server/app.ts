@@ -13,12 +13,14 @@ import { getConfig, type Config } from './config';
 import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
 import { devMailRoutes } from './mail/dev-mail.routes';
+import { apiDescriptionRoutes } from './openapi/openapi.routes';
 import { recommendationRoutes } from './recommendations/recommendations.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
 import { pageWithNonce, styleNonce } from './http/content-security';
 import { originCheck } from './http/origin-check';
+import { clientPageMark, mark } from './http/route-meta';
 
 /** Builds the whole app; index.ts listens, tests listen on port 0. */
 export function createApp(config: Config = getConfig()): Express {
@@ -89,6 +91,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/staff', staffCatalogueRoutes());
   // Reads the local mail stand-in; a production server has no such thing and no such route.
   if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
+  api.use(apiDescriptionRoutes());
   api.use(notFoundApi);
   app.use('/api', api);
   // Before the SPA fallback, so a missing image is a 404 and not the app's index page.
@@ -104,10 +107,10 @@ function serveClient(app: Express, config: Config): void {
   if (!existsSync(index)) return;
   const page = readFileSync(index, 'utf8');
   // Each response carries its own nonce, so the page is never stored or revalidated against an older copy.
-  const sendPage: express.RequestHandler = (_req, res) => {
+  const sendPage: express.RequestHandler = mark((_req, res) => {
     res.setHeader('Cache-Control', 'no-store');
     res.type('html').send(pageWithNonce(page, res));
-  };
+  }, { [clientPageMark]: true });
   // Built assets are served precompressed (.br or .gz made by the build) when the browser accepts it.
   app.use(
     '/assets',
@@ -120,8 +123,8 @@ function serveClient(app: Express, config: Config): void {
   app.get('/index.html', sendPage);
   app.use(express.static(config.clientDist, { index: false, maxAge: '1h' }));
   // Client-side routes get the SPA; a path with an extension is a missing file and stays 404.
-  app.get('/{*splat}', (req, res, next) => {
+  app.get('/{*splat}', mark((req, res, next) => {
     if (extname(req.path)) return next();
     sendPage(req, res, next);
-  });
+  }, { [clientPageMark]: true }));
 }

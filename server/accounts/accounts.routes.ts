@@ -10,7 +10,7 @@ import {
 import type { Config } from '../config';
 import { clearSessionCookie, requireRole, requireUser, setSessionCookie } from '../http/auth';
 import { limiter } from '../http/rate-limit';
-import { parseBody, uuidParam } from '../http/validate';
+import { endpoint } from '../http/endpoint';
 import * as accounts from './accounts.service';
 
 export function authRoutes(config: Config): Router {
@@ -24,40 +24,36 @@ export function authRoutes(config: Config): Router {
     keyGenerator: (req) => (typeof req.body?.email === 'string' ? accounts.normaliseEmail(req.body.email).slice(0, 254) : 'no-email'),
   });
 
-  r.post('/register', perIp, async (req, res) => {
-    const dto = await parseBody(RegisterDto, req.body);
+  r.post('/register', perIp, endpoint({ summary: 'Open a rider account and sign in', body: RegisterDto, status: 201 }, async ({ body: dto }, _req, res) => {
     const s = await accounts.registerRider(config, dto);
     setSessionCookie(res, config, s.token);
     res.status(201).json(s);
-  });
+  }));
 
-  r.post('/login', perIp, perAccount, async (req, res) => {
-    const dto = await parseBody(LoginDto, req.body);
+  r.post('/login', perIp, perAccount, endpoint({ summary: 'Sign in with e-mail and password (a token and a session cookie)', body: LoginDto }, async ({ body: dto }, _req, res) => {
     const s = await accounts.signIn(config, dto.email, dto.password);
     setSessionCookie(res, config, s.token);
     res.json(s);
-  });
+  }));
 
-  r.post('/logout', (_req, res) => {
+  r.post('/logout', endpoint({ summary: 'Sign out (clears the session cookie)', reply: 'none' }, (_input, _req, res) => {
     clearSessionCookie(res, config);
     res.status(204).end();
-  });
+  }));
 
-  r.get('/me', (req, res) => {
+  r.get('/me', endpoint({ summary: 'The signed-in account', signedIn: true }, (_input, req, res) => {
     res.json({ user: accounts.toUserDto(requireUser(req)) });
-  });
+  }));
 
-  r.post('/password-reset/request', perIp, async (req, res) => {
-    const dto = await parseBody(PasswordResetRequestDto, req.body);
+  r.post('/password-reset/request', perIp, endpoint({ summary: 'Ask for a password reset link', body: PasswordResetRequestDto, status: 202 }, async ({ body: dto }, _req, res) => {
     await accounts.requestPasswordReset(dto.email, config);
     res.status(202).json({ message: 'If an account uses this e-mail, a reset link is on its way.' });
-  });
+  }));
 
-  r.post('/password-reset/confirm', perIp, async (req, res) => {
-    const dto = await parseBody(PasswordResetConfirmDto, req.body);
+  r.post('/password-reset/confirm', perIp, endpoint({ summary: 'Set a new password with a reset token', body: PasswordResetConfirmDto, reply: 'none' }, async ({ body: dto }, _req, res) => {
     await accounts.confirmPasswordReset(dto.token, dto.password);
     res.status(204).end();
-  });
+  }));
 
   return r;
 }
@@ -66,20 +62,17 @@ export function adminUserRoutes(): Router {
   const r = Router();
   r.use(requireRole('admin'));
 
-  r.get('/', async (_req, res) => {
+  r.get('/', endpoint({ summary: 'Every account' }, async (_input, _req, res) => {
     res.json({ items: await accounts.listUsers() });
-  });
+  }));
 
-  r.post('/', async (req, res) => {
-    const dto = await parseBody(CreateUserDto, req.body);
-    res.status(201).json(await accounts.createUserByAdmin(dto));
-  });
+  r.post('/', endpoint({ summary: 'Open an account with any role', body: CreateUserDto, status: 201 }, async ({ body }, _req, res) => {
+    res.status(201).json(await accounts.createUserByAdmin(body));
+  }));
 
-  r.patch('/:id', async (req, res) => {
-    const id = uuidParam(req.params.id, 'The account');
-    const dto = await parseBody(UpdateUserDto, req.body);
-    res.json(await accounts.updateUserByAdmin(requireUser(req).id, id, dto));
-  });
+  r.patch('/:id', endpoint({ summary: 'Change an account’s role, name or disabled flag', ids: { id: 'The account' }, body: UpdateUserDto }, async ({ ids, body }, req, res) => {
+    res.json(await accounts.updateUserByAdmin(requireUser(req).id, ids.id, body));
+  }));
 
   return r;
 }

@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import { AuditListQueryDto } from '../../shared/catalogue';
 import { requireRole } from '../http/auth';
-import { parseQuery } from '../http/validate';
+import { endpoint } from '../http/endpoint';
 import { listAudit } from './audit.service';
 
 export function auditRoutes(): Router {
   const r = Router();
   r.use(requireRole('staff', 'admin'));
-  r.get('/', async (req, res) => {
-    res.json(await listAudit(await parseQuery(AuditListQueryDto, req.query)));
-  });
+  r.get('/', endpoint({ summary: 'Changes to the catalogue and fitment table, newest first', query: AuditListQueryDto }, async ({ query }, _req, res) => {
+    res.json(await listAudit(query));
+  }));
   return r;
 }

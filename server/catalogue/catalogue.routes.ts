@@ -13,7 +13,7 @@ import {
 import type { Config } from '../config';
 import { AppError } from '../errors';
 import { requireRole, requireUser } from '../http/auth';
-import { parseBody, parseQuery, uuidParam } from '../http/validate';
+import { endpoint } from '../http/endpoint';
 import { imageNamePattern } from '../uploads/image-storage';
 import { imageStorageFor } from '../uploads/image-storage-for';
 import * as catalogue from './catalogue.service';
@@ -22,12 +22,12 @@ import { springGeometry } from './spring-geometry';
 
 export function publicProductRoutes(): Router {
   const r = Router();
-  r.get('/', async (req, res) => {
-    res.json(await catalogue.listProducts(await parseQuery(ProductListQueryDto, req.query), 'public'));
-  });
-  r.get('/:id', async (req, res) => {
-    res.json(await catalogue.getProduct(uuidParam(req.params.id, 'The product'), 'public'));
-  });
+  r.get('/', endpoint({ summary: 'Products riders may buy, filtered and paged', query: ProductListQueryDto }, async ({ query }, _req, res) => {
+    res.json(await catalogue.listProducts(query, 'public'));
+  }));
+  r.get('/:id', endpoint({ summary: 'One product as riders see it', ids: { id: 'The product' } }, async ({ ids }, _req, res) => {
+    res.json(await catalogue.getProduct(ids.id, 'public'));
+  }));
   return r;
 }
 
@@ -53,44 +53,42 @@ export function staffProductRoutes(config: Config): Router {
   const r = Router();
   const storage = imageStorageFor(config);
   r.use(requireRole('staff', 'admin'));
-  const id = (v: unknown) => uuidParam(v, 'The product');
+  const id = { id: 'The product' };
+  const image = {
+    type: 'multipart/form-data',
+    description: 'One image (JPEG, PNG or WebP) in the field "image".',
+    schema: { type: 'object', properties: { image: { type: 'string', contentMediaType: 'application/octet-stream' } }, required: ['image'] },
+  };
 
-  r.get('/', async (req, res) => {
-    res.json(await catalogue.listProducts(await parseQuery(StaffProductListQueryDto, req.query), 'staff'));
-  });
-  r.get('/:id', async (req, res) => {
-    res.json(await catalogue.getProduct(id(req.params.id), 'staff'));
-  });
-  r.post('/', async (req, res) => {
-    const dto = await parseBody(ProductInputDto, req.body);
-    res.status(201).json(await catalogue.createProduct(requireUser(req).id, dto));
-  });
-  r.put('/:id', async (req, res) => {
-    const productId = id(req.params.id);
-    const dto = await parseBody(ProductInputDto, req.body);
-    res.json(await catalogue.updateProduct(requireUser(req).id, productId, dto));
-  });
-  r.delete('/:id', async (req, res) => {
-    await catalogue.deleteProduct(requireUser(req).id, id(req.params.id), storage);
+  r.get('/', endpoint({ summary: 'Every product with stock and bin, filtered and paged', query: StaffProductListQueryDto }, async ({ query }, _req, res) => {
+    res.json(await catalogue.listProducts(query, 'staff'));
+  }));
+  r.get('/:id', endpoint({ summary: 'One product as staff see it', ids: id }, async ({ ids }, _req, res) => {
+    res.json(await catalogue.getProduct(ids.id, 'staff'));
+  }));
+  r.post('/', endpoint({ summary: 'Add a product', body: ProductInputDto, status: 201 }, async ({ body }, req, res) => {
+    res.status(201).json(await catalogue.createProduct(requireUser(req).id, body));
+  }));
+  r.put('/:id', endpoint({ summary: 'Replace a product (images stay)', ids: id, body: ProductInputDto }, async ({ ids, body }, req, res) => {
+    res.json(await catalogue.updateProduct(requireUser(req).id, ids.id, body));
+  }));
+  r.delete('/:id', endpoint({ summary: 'Delete a product and its images', ids: id, reply: 'none' }, async ({ ids }, req, res) => {
+    await catalogue.deleteProduct(requireUser(req).id, ids.id, storage);
     res.status(204).end();
-  });
-  r.patch('/:id/stock', async (req, res) => {
-    const productId = id(req.params.id);
-    const dto = await parseBody(StockUpdateDto, req.body);
-    res.json(await catalogue.updateStock(requireUser(req).id, productId, dto));
-  });
-  r.post('/:id/images', imageUpload(config), async (req, res) => {
+  }));
+  r.patch('/:id/stock', endpoint({ summary: 'Set the count on the shelf, or change it by an amount', ids: id, body: StockUpdateDto }, async ({ ids, body }, req, res) => {
+    res.json(await catalogue.updateStock(requireUser(req).id, ids.id, body));
+  }));
+  r.post('/:id/images', imageUpload(config), endpoint({ summary: 'Add an image to a product', ids: id, content: image, status: 201 }, async ({ ids }, req, res) => {
     const file = req.file ? { originalName: req.file.originalname, bytes: req.file.buffer } : undefined;
-    res.status(201).json(await catalogue.addProductImage(requireUser(req).id, id(req.params.id), file, storage));
-  });
-  r.put('/:id/images/order', async (req, res) => {
-    const productId = id(req.params.id);
-    const dto = await parseBody(ImageOrderDto, req.body);
-    res.json(await catalogue.reorderProductImages(requireUser(req).id, productId, dto));
-  });
-  r.delete('/:id/images/:imageId', async (req, res) => {
-    res.json(await catalogue.deleteProductImage(requireUser(req).id, id(req.params.id), uuidParam(req.params.imageId, 'The image'), storage));
-  });
+    res.status(201).json(await catalogue.addProductImage(requireUser(req).id, ids.id, file, storage));
+  }));
+  r.put('/:id/images/order', endpoint({ summary: 'Put a product’s images in a new order', ids: id, body: ImageOrderDto }, async ({ ids, body }, req, res) => {
+    res.json(await catalogue.reorderProductImages(requireUser(req).id, ids.id, body));
+  }));
+  r.delete('/:id/images/:imageId', endpoint({ summary: 'Remove one image of a product', ids: { ...id, imageId: 'The image' } }, async ({ ids }, req, res) => {
+    res.json(await catalogue.deleteProductImage(requireUser(req).id, ids.id, ids.imageId, storage));
+  }));
   return r;
 }
 
@@ -98,31 +96,25 @@ export function staffProductRoutes(config: Config): Router {
 export function staffCatalogueRoutes(): Router {
   const r = Router();
   r.use(requireRole('staff', 'admin'));
-  r.get('/spring-options', (_req, res) => {
+  r.get('/spring-options', endpoint({ summary: 'What the spring form’s selects offer' }, (_input, _req, res) => {
     res.json(catalogue.springOptions());
-  });
-  r.post('/spring-geometry', async (req, res) => {
-    const dto = await parseBody(SpringGeometryInputDto, req.body);
-    res.json(springGeometry(dto, dto.rateNPerMm));
-  });
-  const ids = (p: Record<string, unknown>) => ({ fitmentId: uuidParam(p.fitmentId, 'The fitment'), productId: uuidParam(p.productId, 'The spring') });
-  r.get('/fitments/:fitmentId/compatibility', async (req, res) => {
-    res.json(await compatibility.fitmentCompatibility(uuidParam(req.params.fitmentId, 'The fitment')));
-  });
-  r.put('/fitments/:fitmentId/springs/:productId/override', async (req, res) => {
-    const { fitmentId, productId } = ids(req.params);
-    const dto = await parseBody(CompatibilityOverrideDto, req.body);
-    res.json(await compatibility.setOverride(requireUser(req).id, fitmentId, productId, dto));
-  });
-  r.delete('/fitments/:fitmentId/springs/:productId/override', async (req, res) => {
-    const { fitmentId, productId } = ids(req.params);
-    res.json(await compatibility.clearOverride(requireUser(req).id, fitmentId, productId));
-  });
-  r.put('/fitments/:fitmentId/springs/:productId/adapters', async (req, res) => {
-    const { fitmentId, productId } = ids(req.params);
-    const dto = await parseBody(AdapterNeedsDto, req.body);
-    res.json(await compatibility.setAdapters(requireUser(req).id, fitmentId, productId, dto));
-  });
+  }));
+  r.post('/spring-geometry', endpoint({ summary: 'The spring form’s geometry check as staff type', body: SpringGeometryInputDto }, ({ body }, _req, res) => {
+    res.json(springGeometry(body, body.rateNPerMm));
+  }));
+  const pair = { fitmentId: 'The fitment', productId: 'The spring' };
+  r.get('/fitments/:fitmentId/compatibility', endpoint({ summary: 'Every catalogue spring against one bike', ids: { fitmentId: 'The fitment' } }, async ({ ids }, _req, res) => {
+    res.json(await compatibility.fitmentCompatibility(ids.fitmentId));
+  }));
+  r.put('/fitments/:fitmentId/springs/:productId/override', endpoint({ summary: 'Force a spring to fit a bike, or exclude it', ids: pair, body: CompatibilityOverrideDto }, async ({ ids, body }, req, res) => {
+    res.json(await compatibility.setOverride(requireUser(req).id, ids.fitmentId, ids.productId, body));
+  }));
+  r.delete('/fitments/:fitmentId/springs/:productId/override', endpoint({ summary: 'Let the fit window decide again', ids: pair }, async ({ ids }, req, res) => {
+    res.json(await compatibility.clearOverride(requireUser(req).id, ids.fitmentId, ids.productId));
+  }));
+  r.put('/fitments/:fitmentId/springs/:productId/adapters', endpoint({ summary: 'The adapters a spring needs on a bike (the whole list)', ids: pair, body: AdapterNeedsDto }, async ({ ids, body }, req, res) => {
+    res.json(await compatibility.setAdapters(requireUser(req).id, ids.fitmentId, ids.productId, body));
+  }));
   return r;
 }
 
@@ -130,18 +122,19 @@ export function staffCatalogueRoutes(): Router {
 export function productImageFiles(config: Config): Router {
   const r = Router();
   const storage = imageStorageFor(config);
-  r.get('/:name', async (req, res, next) => {
+  const file = { type: 'image/*', description: 'The image bytes, cached for a year.' };
+  r.get('/:name', endpoint({ summary: 'A product image by its generated name', reply: file }, async (_input, req, res) => {
     const name = String(req.params.name);
     const ext = imageNamePattern.exec(name)?.[1];
     const bytes = ext ? await storage.read(name) : undefined;
-    if (!ext || !bytes) return next(AppError.notFound('The image'));
+    if (!ext || !bytes) throw AppError.notFound('The image');
     const type = Object.entries(catalogue.imageTypes).find(([, e]) => e === ext)![0];
     res.setHeader('Content-Type', type);
     res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox");
     res.send(bytes);
-  });
+  }));
   return r;
 }
 

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { AppDataSource } from '../db/data-source';
+import { endpoint } from '../http/endpoint';
 
 /** Asks the database a trivial question with a short deadline. */
 export async function databaseIsUp(): Promise<boolean> {
@@ -17,9 +18,9 @@ export async function databaseIsUp(): Promise<boolean> {
 
 export function healthRoutes(): Router {
   const r = Router();
-  r.get('/', async (_req, res) => {
+  r.get('/', endpoint({ summary: 'Whether the server and its database answer (503 when the database does not)' }, async (_input, _req, res) => {
     const up = await databaseIsUp();
     res.status(up ? 200 : 503).json(up ? { status: 'ok', db: 'ok' } : { status: 'degraded', db: 'down' });
-  });
+  }));
   return r;
 }

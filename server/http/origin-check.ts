@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Config } from '../config';
 import { AppError } from '../errors';
+import { crossSiteCheckMark, mark } from './route-meta';
 
 const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -10,7 +11,7 @@ const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
  */
 export function originCheck(config: Config): RequestHandler {
   const allowed = new Set([config.publicOrigin, `http://127.0.0.1:${config.port}`, `http://localhost:${config.port}`, 'http://127.0.0.1:5173', 'http://localhost:5173']);
-  return (req, _res, next) => {
+  return mark<RequestHandler>((req, _res, next) => {
     if (safeMethods.has(req.method)) return next();
     const origin = req.headers.origin ?? refererOrigin(req.headers.referer);
     const host = req.headers.host;
@@ -18,7 +19,7 @@ export function originCheck(config: Config): RequestHandler {
       return next(new AppError('forbidden', 'Cross-site request refused.'));
     }
     next();
-  };
+  }, { [crossSiteCheckMark]: true });
 }
 
 function refererOrigin(referer: string | undefined): string | undefined {

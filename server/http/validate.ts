@@ -1,22 +1,25 @@
-import type { RequestHandler } from 'express';
-import { plainToInstance, type ClassConstructor } from 'class-transformer';
-import { validateSync, type ValidatorOptions } from 'class-validator';
-import { flattenValidationErrors, isStorableText, unstorableTextMessage } from '../../shared/dto/validation';
+import type { ClassConstructor } from 'class-transformer';
+import { isStorableText, unstorableTextMessage } from '../../shared/dto/validation';
 import { AppError } from '../errors';
-import { memoiseValidationMetadata } from './validation-metadata-cache';
-
-memoiseValidationMetadata();
-
-// No request DTO has an asynchronous constraint, so the synchronous validator skips a promise per request.
-const options: ValidatorOptions = { whitelist: true, forbidNonWhitelisted: true, forbidUnknownValues: true };
+import { classValidatorParse } from './validation/class-validator-parse';
+import { compiledParse, isCompilable, listsWhereObjectsBelong, type Parsed } from './validation/compiled-validator';
 
 // Far deeper than any request DTO nests; class-transformer recurses per level and would overflow the stack.
 const maxDepth = 32;
 
 /**
- * Per-field problems no DTO constraint can report: nesting deep enough to overflow the transformer, and text
- * PostgreSQL cannot store (NUL) or that is not Unicode (a lone surrogate, which also throws inside isEmail).
- * Walks with its own stack so a hostile body cannot overflow this check either.
+ * Keys that name JavaScript's own object machinery (`__proto__`, `constructor`, `toString`, …, and `prototype`).
+ * No request field is named so; left in, they swap prototypes or make class-transformer call a user object as a
+ * class (`targetType is not a constructor`, a 500), or are dropped unseen. So they are refused wherever they appear.
+ */
+const machineryKeys: ReadonlySet<string> = new Set([...Object.getOwnPropertyNames(Object.prototype), 'prototype']);
+
+export const isMachineryKey = (key: string): boolean => machineryKeys.has(key);
+
+/**
+ * Per-field problems no DTO constraint can report: nesting deep enough to overflow the transformer, keys that name
+ * object machinery, and text PostgreSQL cannot store (NUL) or that is not Unicode (a lone surrogate, which also
+ * throws inside isEmail). Walks with its own stack so a hostile body cannot overflow this check either.
  */
 export function unreadableFields(root: unknown): Record<string, string> {
   const out: Record<string, string> = {};
@@ -33,16 +36,22 @@ export function unreadableFields(root: unknown): Record<string, string> {
       setField(out, path.split('.')[0] || 'body', 'Is nested too deeply.');
       continue;
     }
-    for (const [k, v] of Object.entries(value)) stack.push({ value: v, path: path ? `${path}.${k}` : k, depth: depth + 1 });
+    for (const [k, v] of Object.entries(value)) {
+      const at = path ? `${path}.${k}` : k;
+      if (!Array.isArray(value) && isMachineryKey(k)) setField(out, at, notAFieldMessage(k));
+      else stack.push({ value: v, path: at, depth: depth + 1 });
+    }
   }
   return out;
 }
+
+const notAFieldMessage = (key: string) => `“${key}” is not a field this request accepts.`;
 
 // Defined, not assigned, so a field named "__proto__" is reported rather than swapping the object's prototype.
 const setField = (o: Record<string, string>, k: string, v: string) => Object.defineProperty(o, k, { value: v, enumerable: true, writable: true, configurable: true });
 
 /** The same walk without building paths: the common, clean request pays a few microseconds, not a path per value. */
-function hasUnreadable(root: unknown): boolean {
+export function hasUnreadable(root: unknown): boolean {
   const values: unknown[] = [root];
   const depths: number[] = [0];
   while (values.length) {
@@ -54,8 +63,16 @@ function hasUnreadable(root: unknown): boolean {
     }
     if (value === null || typeof value !== 'object') continue;
     if (depth >= maxDepth) return true;
-    for (const v of Array.isArray(value) ? value : Object.values(value)) {
-      values.push(v);
+    if (Array.isArray(value)) {
+      for (const v of value) {
+        values.push(v);
+        depths.push(depth + 1);
+      }
+      continue;
+    }
+    for (const k in value) {
+      if (machineryKeys.has(k)) return true;
+      values.push((value as Record<string, unknown>)[k]);
       depths.push(depth + 1);
     }
   }
@@ -66,39 +83,49 @@ function refuseUnreadable(input: unknown, message: string): void {
   if (hasUnreadable(input)) throw AppError.validation(message, unreadableFields(input));
 }
 
+/**
+ * A checked plain object as an instance of the DTO class, or its per-field messages: through the form compiled once
+ * per class, or through class-transformer and class-validator for a class that form cannot mirror.
+ */
+export function toDto<T extends object>(cls: ClassConstructor<T>, input: Record<string, unknown>): Parsed<T> {
+  if (!isCompilable(cls)) return classValidatorParse(cls as new () => T, input);
+  const misplaced = listsWhereObjectsBelong(cls, input);
+  if (Object.keys(misplaced).length) return { ok: false, fields: misplaced };
+  return compiledParse(cls as new () => T, input);
+}
+
 /** Parses req.body into the DTO class and refuses it with per-field messages when it does not fit. */
 export async function parseBody<T extends object>(cls: ClassConstructor<T>, body: unknown): Promise<T> {
+  return bodyAs(cls, body);
+}
+
+/** parseBody without the promise, for the endpoint wrapper on the hot routes. */
+export function bodyAs<T extends object>(cls: ClassConstructor<T>, body: unknown): T {
   if (body === null || typeof body !== 'object' || Array.isArray(body)) {
     throw AppError.validation('The request body must be a JSON object.', { body: 'must be a JSON object' });
   }
   refuseUnreadable(body, 'Some fields need attention.');
-  const dto = plainToInstance(cls, body);
-  const errors = validateSync(dto, options);
-  if (errors.length) {
-    throw AppError.validation('Some fields need attention.', flattenValidationErrors(errors));
-  }
-  return dto;
-}
-
-export function body<T extends object>(cls: ClassConstructor<T>): RequestHandler {
-  return async (req, _res, next) => {
-    req.body = await parseBody(cls, req.body);
-    next();
-  };
+  const parsed = toDto(cls, body as Record<string, unknown>);
+  if (!parsed.ok) throw AppError.validation('Some fields need attention.', parsed.fields);
+  return parsed.value;
 }
 
 /** Parses a query string into the DTO class; repeated or unknown parameters are refused per field. */
 export async function parseQuery<T extends object>(cls: ClassConstructor<T>, query: unknown): Promise<T> {
+  return queryAs(cls, query);
+}
+
+/** parseQuery without the promise. */
+export function queryAs<T extends object>(cls: ClassConstructor<T>, query: unknown): T {
   const q = (query ?? {}) as Record<string, unknown>;
   const repeated = Object.entries(q).filter(([, v]) => typeof v !== 'string');
   if (repeated.length) {
     throw AppError.validation('Some query parameters need attention.', Object.fromEntries(repeated.map(([k]) => [k, 'give this parameter once, as plain text'])));
   }
   refuseUnreadable(q, 'Some query parameters need attention.');
-  const dto = plainToInstance(cls, q);
-  const errors = validateSync(dto, options);
-  if (errors.length) throw AppError.validation('Some query parameters need attention.', flattenValidationErrors(errors));
-  return dto;
+  const parsed = toDto(cls, q);
+  if (!parsed.ok) throw AppError.validation('Some query parameters need attention.', parsed.fields);
+  return parsed.value;
 }
 
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;

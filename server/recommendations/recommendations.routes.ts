@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { RecommendationRequestDto } from '../../shared/catalogue';
 import type { Config } from '../config';
 import { limiter } from '../http/rate-limit';
-import { parseBody } from '../http/validate';
+import { endpoint } from '../http/endpoint';
 import { createBikeCache, recommend } from './recommendations.service';
 
 /** Spring recommendations for a rider's bike and load: no sign-in, limited per address like the calculations. */
@@ -10,8 +10,8 @@ export function recommendationRoutes(config: Config): Router {
   const r = Router();
   const cache = createBikeCache(config.catalogueCacheTtlMs);
   r.use(limiter({ name: 'recommendations', windowMs: 60_000, limit: config.calcRateLimitPerMinute }));
-  r.post('/', async (req, res) => {
-    res.json(await recommend(await parseBody(RecommendationRequestDto, req.body), cache));
-  });
+  r.post('/', endpoint({ summary: 'Catalogue springs for a bike, a rider and a load, best first', body: RecommendationRequestDto }, async ({ body }, _req, res) => {
+    res.json(await recommend(body, cache));
+  }));
   return r;
 }

@@ -17,6 +17,7 @@ import {
   type ValidationArguments,
 } from 'class-validator';
 import { endCoils, SPRING_END_TYPES, SPRING_MATERIAL_KEYS } from '../engine/geometry';
+import { describedAs } from './validation';
 import type {
   ForkSpacerInput,
   ForkSpringInput,
@@ -71,6 +72,14 @@ function numberProblem(label: string, rule: NumberRule, v: unknown): string | un
   return undefined;
 }
 
+/** The JSON Schema of a numeric field's rule, for the API description. */
+const numberSchema = (label: string, rule: NumberRule) => ({
+  type: rule.int ? 'integer' : 'number',
+  ...(rule.exclusiveMin ? { exclusiveMinimum: rule.min } : { minimum: rule.min }),
+  maximum: rule.max,
+  description: rule.unit ? `${label}, ${rule.unit}` : label,
+});
+
 /**
  * One decorator for a numeric field: required (or optional), finite number, range; messages name the field.
  * A single constraint rather than four keeps validation cheap on the hot calculation routes.
@@ -79,7 +88,7 @@ function NumberField(label: string, rule: NumberRule): PropertyDecorator {
   return (target, key) => {
     if (rule.optional) IsOptional()(target, key);
     ValidateBy(
-      { name: 'numberField', validator: { validate: (v: unknown) => numberProblem(label, rule, v) === undefined } },
+      { name: 'numberField', constraints: [describedAs(numberSchema(label, rule))], validator: { validate: (v: unknown) => numberProblem(label, rule, v) === undefined } },
       { message: (args: ValidationArguments) => numberProblem(label, rule, args.value) ?? `${label} is not valid.` },
     )(target, key);
   };
@@ -186,17 +195,40 @@ export function sagReadingProblem(value: unknown, label: string): string | undef
 const readingValue = (v: unknown): number | undefined =>
   isFiniteNumber(v) ? v : isObj(v) && isFiniteNumber(v.down) && isFiniteNumber(v.up) ? (v.down + v.up) / 2 : undefined;
 
+const ratioSchema = { type: 'number', exclusiveMinimum: 0, maximum: MAX_RATIO };
+const leverageSchema = {
+  description: 'Wheel travel per shock travel: one number, or a curve of points with rising wheel travel.',
+  oneOf: [
+    ratioSchema,
+    {
+      type: 'array',
+      minItems: 1,
+      maxItems: MAX_LEVERAGE_POINTS,
+      items: {
+        type: 'object',
+        additionalProperties: false,
+        required: ['wheelTravelMm', 'ratio'],
+        properties: { wheelTravelMm: { type: 'number', minimum: 0, maximum: MAX_CURVE_TRAVEL_MM }, ratio: ratioSchema },
+      },
+    },
+  ],
+};
+const readingMm = { type: 'number', minimum: 0, maximum: MAX_READING_MM };
+const sagReadingSchema = {
+  oneOf: [readingMm, { type: 'object', additionalProperties: false, required: ['down', 'up'], properties: { down: readingMm, up: readingMm } }],
+};
+
 /** Number or leverage curve, validated as a whole (class-transformer cannot type a union). */
 function LeverageRatioField(): PropertyDecorator {
   return ValidateBy(
-    { name: 'leverageRatio', validator: { validate: (v: unknown) => leverageRatioProblem(v) === undefined } },
+    { name: 'leverageRatio', constraints: [describedAs(leverageSchema)], validator: { validate: (v: unknown) => leverageRatioProblem(v) === undefined } },
     { message: (args: ValidationArguments) => leverageRatioProblem(args.value) ?? 'Leverage ratio is not valid.' },
   );
 }
 
 function SagReadingField(label: string): PropertyDecorator {
   return ValidateBy(
-    { name: 'sagReading', validator: { validate: (v: unknown) => sagReadingProblem(v, label) === undefined } },
+    { name: 'sagReading', constraints: [describedAs({ ...sagReadingSchema, description: `${label}, mm: one reading, or the mean of one pushed down and one lifted up` })], validator: { validate: (v: unknown) => sagReadingProblem(v, label) === undefined } },
     { message: (args: ValidationArguments) => sagReadingProblem(args.value, label) ?? `${label} is not valid.` },
   );
 }

@@ -1,6 +1,18 @@
 import type { ValidationError } from 'class-validator';
 
 /**
+ * A custom constraint (ValidateBy) may describe its rule as a JSON Schema fragment in its first constraint, so the
+ * API description states the rule the decorator checks; cross-field rules carry none.
+ * @example ValidateBy({ name: 'ratio', constraints: [describedAs({ type: 'number', maximum: 10 })], validator })
+ */
+export interface DescribedConstraint {
+  jsonSchema: Record<string, unknown>;
+}
+
+export const describedAs = (jsonSchema: Record<string, unknown>): DescribedConstraint => ({ jsonSchema });
+
+
+/**
  * Maps class-validator errors to dotted field paths and the first message of each, e.g.
  * `{ "springs.0.rateNPerMm": "Spring rate must be more than 0 N/mm." }`. A field that is not allowed
  * (refused by `forbidNonWhitelisted`) gets a plain message instead of the library's wording.
