@@ -37,6 +37,8 @@ export default defineConfig({
           name: 'unit',
           include: ['shared/**/*.spec.ts', 'client/src/**/*.spec.ts', 'server/**/*.unit.spec.ts', 'seeds/**/*.unit.spec.ts', 'standins/**/*.spec.ts'],
           environment: 'node',
+          // Property tests run thousands of cases; a 2-core machine under load needs more than the 5 s default.
+          testTimeout: 30000,
         },
       },
       {
