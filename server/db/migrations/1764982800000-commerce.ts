@@ -1,7 +1,7 @@
 import type { MigrationInterface, QueryRunner } from 'typeorm';
 
-export class Commerce1764979200000 implements MigrationInterface {
-  name = 'Commerce1764979200000';
+export class Commerce1764982800000 implements MigrationInterface {
+  name = 'Commerce1764982800000';
 
   async up(q: QueryRunner): Promise<void> {
     // One row: the shop's own figures. The admin pages will edit it; until then the seed and the defaults set it.
