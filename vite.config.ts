@@ -36,7 +36,15 @@ export default defineConfig({
           environment: 'node',
           globalSetup: ['server/test/global-setup.ts'],
           setupFiles: ['server/test/setup-api.ts'],
-          env: { NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_URL: testDatabaseUrl, JWT_SECRET: 'test-secret-test-secret-test-secret-0123' },
+          env: {
+            NODE_ENV: 'test',
+            LOG_LEVEL: 'silent',
+            DATABASE_URL: testDatabaseUrl,
+            JWT_SECRET: 'test-secret-test-secret-test-secret-0123',
+            // Mail retries a second apart, so a test can watch a retry happen.
+            MAIL_RETRY_LIMIT: '5',
+            MAIL_RETRY_DELAY_SECONDS: '1',
+          },
           fileParallelism: false,
           testTimeout: 20000,
           hookTimeout: 60000,

@@ -34,6 +34,16 @@ export interface Config {
   reservationMinutes: number;
   /** How often each app server looks for reservations past their time. */
   reservationSweepMs: number;
+  smtpHost: string;
+  smtpPort: number;
+  smtpSecure: boolean;
+  smtpUser: string;
+  smtpPassword: string;
+  mailFrom: string;
+  mailCaptureUrl: string;
+  mailWorker: boolean;
+  mailRetryLimit: number;
+  mailRetryDelaySeconds: number;
 }
 
 export class ConfigError extends Error {
@@ -96,6 +106,13 @@ export function parseConfig(env: Env = process.env): Config {
     else jwtSecret = demoSecret();
   }
 
+  const mailFrom = env.MAIL_FROM || 'Loadline shop <shop@loadline.test>';
+  if (!/^[^<>@\s]+@[^<>@\s]+\.[^<>@\s]+$|<[^<>@\s]+@[^<>@\s]+\.[^<>@\s]+>$/.test(mailFrom)) {
+    problems.push(`MAIL_FROM must be an address like shop@example.test or Name <shop@example.test>, got '${mailFrom}'`);
+  }
+  const mailCaptureUrl = env.MAIL_CAPTURE_URL || 'http://127.0.0.1:2526';
+  if (!/^https?:\/\//.test(mailCaptureUrl)) problems.push(`MAIL_CAPTURE_URL must be an http:// URL, got '${mailCaptureUrl}'`);
+
   const config: Config = {
     nodeEnv,
     host,
@@ -122,6 +139,16 @@ export function parseConfig(env: Env = process.env): Config {
     stripeApiProtocol: oneOf('STRIPE_API_PROTOCOL', 'http', ['http', 'https'] as const),
     reservationMinutes: int('RESERVATION_MINUTES', 30, 1, 1440),
     reservationSweepMs: int('RESERVATION_SWEEP_MS', 30_000, 0, 3_600_000),
+    smtpHost: env.SMTP_HOST || '127.0.0.1',
+    smtpPort: int('SMTP_PORT', 2525, 1, 65535),
+    smtpSecure: bool('SMTP_SECURE', false),
+    smtpUser: env.SMTP_USER ?? '',
+    smtpPassword: env.SMTP_PASSWORD ?? '',
+    mailFrom,
+    mailCaptureUrl: mailCaptureUrl.replace(/\/+$/, ''),
+    mailWorker: bool('MAIL_WORKER', true),
+    mailRetryLimit: int('MAIL_RETRY_LIMIT', 10, 0, 100),
+    mailRetryDelaySeconds: int('MAIL_RETRY_DELAY_SECONDS', 30, 1, 3600),
   };
   if (!/^(sk|rk)_(test|live)_\w+$/.test(config.stripeSecretKey)) problems.push('STRIPE_SECRET_KEY must look like sk_test_… or sk_live_…');
   if (!config.stripeWebhookSecret.startsWith('whsec_')) problems.push('STRIPE_WEBHOOK_SECRET must start with whsec_');

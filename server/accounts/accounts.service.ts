@@ -3,9 +3,12 @@ import { createHash, randomBytes } from 'node:crypto';
 import { IsNull, MoreThan, type EntityManager } from 'typeorm';
 import type { CreateUserDto, RegisterDto, UpdateUserDto } from '../../shared/dto/auth.dto';
 import type { Role, SessionDto, UserDto } from '../../shared/roles';
-import type { Config } from '../config';
+import { getConfig, type Config } from '../config';
 import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
+import { enqueueMail } from '../mail/outbox';
+import { loadlineShop } from '../mail/shop-identity';
+import { passwordResetMail } from '../mail/templates/password-reset-mail';
 import { PasswordResetToken } from './PasswordResetToken.entity';
 import { signToken } from './tokens';
 import { User } from './User.entity';
@@ -109,18 +112,30 @@ export async function updateUserByAdmin(actorId: string, id: string, dto: Update
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
 /**
- * Creates a single-use reset token when the e-mail belongs to an account.
- * Returns the raw token for the mailer; callers never tell the requester whether the account exists.
+ * Creates a single-use reset token when the e-mail belongs to an account and mails the link through the outbox, in
+ * one transaction. Returns the raw token; callers never tell the requester whether the account exists.
  */
-export async function requestPasswordReset(email: string): Promise<{ user: UserDto; token: string } | undefined> {
+export async function requestPasswordReset(
+  email: string,
+  config: Pick<Config, 'publicOrigin'> = getConfig(),
+): Promise<{ user: UserDto; token: string } | undefined> {
   const user = await findUserByEmail(email);
   if (!user || user.disabled) return undefined;
   const token = randomBytes(32).toString('base64url');
-  await AppDataSource.getRepository(PasswordResetToken).save({
-    userId: user.id,
-    tokenHash: hashToken(token),
-    expiresAt: new Date(Date.now() + resetTokenTtlMs),
-    usedAt: null,
+  await AppDataSource.transaction(async (em) => {
+    const row = await em.getRepository(PasswordResetToken).save({
+      userId: user.id,
+      tokenHash: hashToken(token),
+      expiresAt: new Date(Date.now() + resetTokenTtlMs),
+      usedAt: null,
+    });
+    const mail = passwordResetMail({
+      displayName: user.displayName,
+      resetUrl: `${config.publicOrigin}/reset-password?token=${encodeURIComponent(token)}`,
+      validForMinutes: resetTokenTtlMs / 60_000,
+      shop: loadlineShop,
+    });
+    await enqueueMail(em, `password-reset:${row.id}`, { to: user.email, ...mail });
   });
   return { user: toUserDto(user), token };
 }

@@ -16,4 +16,6 @@ import { Refund } from '../orders/Refund.entity';
 import { PaymentEvent } from '../payments/PaymentEvent.entity';
 import { ShopSettings } from '../shop/ShopSettings.entity';
 
-export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent];
+import { MailOutbox } from '../mail/MailOutbox.entity';
+
+export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent];

@@ -1,6 +1,7 @@
 import { Accounts1764633600000 } from './1764633600000-accounts';
 import { Catalogue1764720000000 } from './1764720000000-catalogue';
+import { MailOutbox1764979200000 } from './1764979200000-mail-outbox';
 import { Commerce1764982800000 } from './1764982800000-commerce';
 
 // Listed by hand: globbed .ts migrations do not load under every runner we use.
-export const migrations = [Accounts1764633600000, Catalogue1764720000000, Commerce1764982800000];
+export const migrations = [Accounts1764633600000, Catalogue1764720000000, MailOutbox1764979200000, Commerce1764982800000];
