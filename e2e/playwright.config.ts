@@ -2,6 +2,9 @@ import { defineConfig } from '@playwright/test';
 
 const port = Number(process.env.E2E_PORT ?? 8090);
 const databaseUrl = process.env.E2E_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54339/loadline_e2e';
+// The mail stand-in npm test starts (scripts/test.sh); the server under test sends to it and reads it back.
+const mailSmtpPort = process.env.MAIL_STANDIN_SMTP_PORT ?? '2535';
+const mailHttpPort = process.env.MAIL_STANDIN_HTTP_PORT ?? '2536';
 
 export default defineConfig({
   testDir: '.',
@@ -45,6 +48,11 @@ export default defineConfig({
       JWT_SECRET: 'e2e-secret-e2e-secret-e2e-secret-e2e-0001',
       LOGIN_LIMIT_PER_IP: '1000',
       UPLOAD_DIR: '.data/e2e-uploads',
+      SMTP_HOST: '127.0.0.1',
+      SMTP_PORT: mailSmtpPort,
+      SMTP_SECURE: 'false',
+      MAIL_CAPTURE_URL: `http://127.0.0.1:${mailHttpPort}`,
+      MAIL_RETRY_DELAY_SECONDS: '1',
     },
   },
 });

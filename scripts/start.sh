@@ -9,6 +9,12 @@ export PORT=${PORT:-8080}
 # The payment stand-in (standins/payments) answers the stripe SDK here and sends its events to the app's webhook.
 export STRIPE_API_PORT=${STRIPE_API_PORT:-8470}
 export PAYMENTS_WEBHOOK_URL=${PAYMENTS_WEBHOOK_URL:-http://127.0.0.1:$PORT/api/payments/webhook}
+# The mail stand-in's ports, and the app pointed at them.
+export MAIL_STANDIN_SMTP_PORT=${MAIL_STANDIN_SMTP_PORT:-2525}
+export MAIL_STANDIN_HTTP_PORT=${MAIL_STANDIN_HTTP_PORT:-2526}
+export SMTP_HOST=${SMTP_HOST:-127.0.0.1}
+export SMTP_PORT=${SMTP_PORT:-$MAIL_STANDIN_SMTP_PORT}
+export MAIL_CAPTURE_URL=${MAIL_CAPTURE_URL:-http://127.0.0.1:$MAIL_STANDIN_HTTP_PORT}
 
 ensure_node_modules
 

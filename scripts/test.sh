@@ -12,6 +12,9 @@ export E2E_PORT=${E2E_PORT:-8090}
 export STRIPE_API_PORT=${TEST_STRIPE_API_PORT:-8471}
 export PAYMENTS_WEBHOOK_URL="http://127.0.0.1:$E2E_PORT/api/payments/webhook"
 export PAYMENTS_RETRY_BASE_MS=${PAYMENTS_RETRY_BASE_MS:-200}
+# The tests' mail stand-in, on ports of its own so it can run beside npm start's.
+export MAIL_STANDIN_SMTP_PORT=${MAIL_STANDIN_SMTP_PORT:-2535}
+export MAIL_STANDIN_HTTP_PORT=${MAIL_STANDIN_HTTP_PORT:-2536}
 
 apt_install chromium
 ensure_node_modules

@@ -11,6 +11,7 @@ import { productImageFiles, publicProductRoutes, staffCatalogueRoutes, staffProd
 import { getConfig, type Config } from './config';
 import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
+import { devMailRoutes } from './mail/dev-mail.routes';
 import { recommendationRoutes } from './recommendations/recommendations.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
@@ -84,6 +85,8 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/products', publicProductRoutes());
   api.use('/staff/products', staffProductRoutes(config));
   api.use('/staff', staffCatalogueRoutes());
+  // Reads the local mail stand-in; a production server has no such thing and no such route.
+  if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
   api.use(notFoundApi);
   app.use('/api', api);
   // Before the SPA fallback, so a missing image is a 404 and not the app's index page.

@@ -2,6 +2,7 @@ import 'reflect-metadata';
 import { createApp } from './app';
 import { ConfigError, getConfig } from './config';
 import { AppDataSource } from './db/data-source';
+import { startMailWorker, type MailWorker } from './mail/mail-worker';
 
 let config;
 try {
@@ -28,6 +29,17 @@ for (let attempt = 1; ; attempt++) {
   }
 }
 
+// The mail worker polls the job queue in this process; extra app servers may leave it to one (MAIL_WORKER=false).
+let mailWorker: MailWorker | undefined;
+if (config.mailWorker) {
+  const log = {
+    info: (obj: object, msg: string) => console.log(msg, JSON.stringify(obj)),
+    warn: (obj: object, msg: string) => console.warn(msg, JSON.stringify(obj)),
+    error: (obj: object, msg: string) => console.error(msg, JSON.stringify(obj)),
+  };
+  mailWorker = await startMailWorker(config, { poll: true, log });
+}
+
 const app = createApp(config);
 const server = app.listen(config.port, config.host, () => {
   console.log(`Loadline is serving on http://${config.host}:${config.port}`);
@@ -41,6 +53,7 @@ async function shutdown(signal: string) {
   server.close();
   server.closeIdleConnections();
   setTimeout(() => server.closeAllConnections(), 3000).unref();
+  await mailWorker?.stop().catch(() => undefined);
   await AppDataSource.destroy().catch(() => undefined);
   process.exit(0);
 }

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { startMailStandin, type MailStandin } from '../../standins/mail/mail-standin';
+import { startMailStandin, type CapturedMail, type MailStandin } from '../../standins/mail/mail-standin';
 
 /** A mail stand-in of the test's own on free ports, which a test may stop and start again on the same ports. */
 export class TestMailbox {
@@ -27,12 +27,12 @@ export class TestMailbox {
   }
 
   /** What the stand-in holds, read over its HTTP API as the app does. */
-  async messages(): Promise<{ to: string; subject: string; text: string; html: string; messageId: string }[]> {
-    return (await fetch(`${this.captureUrl}/messages`)).json();
+  async messages(): Promise<CapturedMail[]> {
+    return (await (await fetch(`${this.captureUrl}/messages`)).json()) as CapturedMail[];
   }
 
   async stats(): Promise<{ count: number; duplicatesDropped: number }> {
-    return (await fetch(`${this.captureUrl}/stats`)).json();
+    return (await (await fetch(`${this.captureUrl}/stats`)).json()) as { count: number; duplicatesDropped: number };
   }
 
   async dispose(): Promise<void> {
