@@ -28,9 +28,6 @@ export class Order {
   @Column({ name: 'shipping_address', type: 'jsonb' })
   shippingAddress!: ShippingAddressDto;
 
-  @Column({ name: 'access_token_hash', type: 'char', length: 64 })
-  accessTokenHash!: string;
-
   @Column({ type: 'varchar', length: 20 })
   status!: OrderStatus;
 

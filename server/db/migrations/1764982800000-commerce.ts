@@ -58,7 +58,6 @@ export class Commerce1764982800000 implements MigrationInterface {
         email varchar(254) NOT NULL,
         customer_name varchar(120) NOT NULL,
         shipping_address jsonb NOT NULL,
-        access_token_hash char(64) NOT NULL,
         status varchar(20) NOT NULL CHECK (status IN ('pending', 'confirmed', 'completed', 'cancelled')),
         payment_status varchar(20) NOT NULL CHECK (payment_status IN ('awaiting', 'paid', 'failed', 'refunded', 'partially-refunded')),
         fulfilment_status varchar(20) NOT NULL CHECK (fulfilment_status IN ('unfulfilled', 'packed', 'partially-shipped', 'shipped', 'delivered')),

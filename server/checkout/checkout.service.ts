@@ -1,0 +1,154 @@
+import type { EntityManager } from 'typeorm';
+import { cartTotals } from '../../shared/cart-totals';
+import type { CheckoutDto, CheckoutResultDto } from '../../shared/commerce/checkout.dto';
+import { lineTotalCents } from '../../shared/money';
+import { cartLineRows, type CartLineRow } from '../cart/cart-dto';
+import { findCart, type CartOwner } from '../cart/cart-identity';
+import { SpringSet } from '../cart/SpringSet.entity';
+import type { Config } from '../config';
+import { AppDataSource } from '../db/data-source';
+import { AppError } from '../errors';
+import { orderAccessToken } from '../orders/order-access';
+import { lockOrder, moveOrder } from '../orders/order-moves';
+import { releaseStock, reserveStock } from '../orders/order-stock';
+import { Order } from '../orders/Order.entity';
+import { OrderLine } from '../orders/OrderLine.entity';
+import { PaymentRefusedError, PaymentUnavailableError, type PaymentProvider } from '../payments/payment-provider';
+import { getShopSettings, pricingOf, reservationMinutesOf } from '../shop/shop-settings.service';
+
+/** A price that moved since the line was added is brought up to date and shown; checkout never charges it silently. */
+async function refusePriceChanges(cartId: string, rows: CartLineRow[]): Promise<void> {
+  const changed = rows.filter((r) => r.price_cents !== r.unit_price_cents);
+  if (!changed.length) return;
+  await AppDataSource.transaction(async (em) => {
+    for (const r of changed) await em.query(`UPDATE cart_lines SET unit_price_cents = $2 WHERE id = $1 AND cart_id = $3`, [r.id, r.price_cents, cartId]);
+  });
+  const list = changed.map((r) => `${r.name} (${(r.unit_price_cents / 100).toFixed(2)} → ${(r.price_cents / 100).toFixed(2)})`).join(', ');
+  throw new AppError('conflict', `Prices changed since you added them: ${list}. Your cart shows the new prices; check it and place the order again.`, undefined, {
+    reason: 'price-changed',
+    lines: changed.map((r) => ({ lineId: r.id, name: r.name, was: r.unit_price_cents, now: r.price_cents })),
+  });
+}
+
+/** Cancels this cart's earlier unpaid orders (a second checkout replaces the first), so they hold no stock. */
+async function replaceEarlierOrders(em: EntityManager, cartId: string): Promise<string[]> {
+  const earlier = (await em.query(`SELECT id FROM orders WHERE cart_id = $1 AND status = 'pending' AND payment_status <> 'paid' ORDER BY id`, [cartId])) as { id: string }[];
+  const sessions: string[] = [];
+  for (const { id } of earlier) {
+    const o = await lockOrder(em, { id });
+    if (!o || o.status !== 'pending') continue;
+    await releaseStock(em, o);
+    await moveOrder(em, o, { status: 'cancelled' }, { cancelReason: 'replaced' });
+    if (o.paymentSessionId) sessions.push(o.paymentSessionId);
+  }
+  return sessions;
+}
+
+/**
+ * Places an order from the cart: the order, its lines (name, SKU and unit price copied) and the stock reservation
+ * commit together; then the provider opens the payment page with the order's idempotency key. The provider is
+ * called after that commit, so no row lock waits on the network; if it cannot be reached, the same path that
+ * expires a reservation gives the stock back and the cart stays as it was.
+ */
+export async function checkout(config: Config, provider: PaymentProvider, owner: CartOwner, dto: CheckoutDto): Promise<CheckoutResultDto> {
+  const settings = await getShopSettings();
+  const minutes = reservationMinutesOf(settings, config);
+
+  const { order, replaced } = await AppDataSource.transaction(async (em) => {
+    const { cartId } = await findCart(em, owner, false);
+    if (!cartId) throw new AppError('conflict', 'Your cart is empty.', undefined, { reason: 'empty-cart' });
+    // Checkouts of one cart take turns, so a double click cannot reserve twice.
+    await em.query(`SELECT id FROM carts WHERE id = $1 FOR UPDATE`, [cartId]);
+    const rows = await cartLineRows(em, cartId);
+    if (!rows.length) throw new AppError('conflict', 'Your cart is empty.', undefined, { reason: 'empty-cart' });
+    const gone = rows.find((r) => !r.active);
+    if (gone) throw new AppError('conflict', `${gone.name} is no longer sold; remove it from your cart to check out.`, undefined, { reason: 'not-sold', productId: gone.product_id });
+    await refusePriceChanges(cartId, rows);
+
+    const replaced = await replaceEarlierOrders(em, cartId);
+    const totals = cartTotals(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), pricingOf(settings));
+    const orders = em.getRepository(Order);
+    const inserted = await orders.insert({
+      userId: owner.userId,
+      cartId,
+      email: dto.email.trim().toLowerCase(),
+      customerName: dto.shippingAddress.name.trim(),
+      shippingAddress: { ...dto.shippingAddress },
+      status: 'pending',
+      paymentStatus: 'awaiting',
+      fulfilmentStatus: 'unfulfilled',
+      currency: totals.currency,
+      subtotalCents: totals.subtotalCents,
+      shippingCents: totals.shippingCents,
+      vatCents: totals.vatCents,
+      totalCents: totals.totalCents,
+      vatRateBasisPoints: settings.vatRateBasisPoints,
+      reservedUntil: new Date(Date.now() + minutes * 60_000),
+      stockHeld: true,
+    });
+    const order = await orders.findOneByOrFail({ id: (inserted.identifiers[0] as { id: string }).id });
+
+    const setIds = [...new Set(rows.map((r) => r.spring_set_id).filter((x): x is string => !!x))];
+    const sets = setIds.length ? await em.getRepository(SpringSet).createQueryBuilder('s').where('s.id IN (:...setIds)', { setIds }).getMany() : [];
+    const setupOf = (r: CartLineRow) => sets.find((s) => s.id === r.spring_set_id)?.setup.find((x) => x.productId === r.product_id) ?? null;
+    await em.getRepository(OrderLine).insert(
+      rows.map((r, i) => ({
+        orderId: order.id,
+        position: i + 1,
+        productId: r.product_id,
+        sku: r.sku,
+        name: r.name,
+        kind: r.kind,
+        unitPriceCents: r.unit_price_cents,
+        quantity: r.quantity,
+        lineTotalCents: lineTotalCents(r.unit_price_cents, r.quantity),
+        springSetId: r.spring_set_id,
+        setup: setupOf(r),
+      })),
+    );
+    await reserveStock(em, rows.map((r) => ({ productId: r.product_id, name: r.name, quantity: r.quantity })));
+    return { order, replaced };
+  });
+
+  for (const id of replaced) await provider.expireCheckoutSession(id).catch(() => undefined);
+
+  const token = orderAccessToken(config, order.id);
+  let session;
+  try {
+    const lines = await AppDataSource.getRepository(OrderLine).find({ where: { orderId: order.id }, order: { position: 'ASC' } });
+    session = await provider.createCheckoutSession(
+      {
+        orderId: order.id,
+        orderNumber: order.number,
+        email: order.email,
+        currency: order.currency,
+        lines: [
+          ...lines.map((l) => ({ name: l.name, sku: l.sku, unitAmountCents: l.unitPriceCents, quantity: l.quantity })),
+          ...(order.shippingCents > 0 ? [{ name: 'Shipping', sku: 'SHIPPING', unitAmountCents: order.shippingCents, quantity: 1 }] : []),
+        ],
+        successUrl: `${config.publicOrigin}/checkout/done?order=${order.id}&token=${token}`,
+        cancelUrl: `${config.publicOrigin}/checkout/done?order=${order.id}&token=${token}&back=1`,
+        expiresAt: order.reservedUntil,
+      },
+      `checkout-session:${order.id}`,
+    );
+  } catch (e) {
+    if (!(e instanceof PaymentUnavailableError) && !(e instanceof PaymentRefusedError)) throw e;
+    await cancelUnpayable(order.id);
+    throw new AppError('unavailable', 'Payment is not available right now, so nothing was charged and nothing is held. Your cart is kept; please try again in a few minutes.', undefined, {
+      reason: 'payment-unavailable',
+    });
+  }
+  await AppDataSource.getRepository(Order).update({ id: order.id }, { paymentSessionId: session.id, paymentUrl: session.url, ...(session.paymentIntentId ? { paymentIntentId: session.paymentIntentId } : {}) });
+  return { orderId: order.id, orderNumber: order.number, paymentUrl: session.url!, accessToken: token };
+}
+
+/** The payment page could not be opened: the order is cancelled and its stock goes back, in one transaction. */
+async function cancelUnpayable(orderId: string): Promise<void> {
+  await AppDataSource.transaction(async (em) => {
+    const o = await lockOrder(em, { id: orderId });
+    if (!o || o.status !== 'pending') return;
+    await releaseStock(em, o);
+    await moveOrder(em, o, { status: 'cancelled' }, { cancelReason: 'payment-unavailable' });
+  });
+}
