@@ -10,7 +10,7 @@ import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
 import { orderAccessToken } from '../orders/order-access';
 import { lockOrder, moveOrder } from '../orders/order-moves';
-import { releaseStock, reserveStock } from '../orders/order-stock';
+import { outOfStock, releaseStock, reserveStock } from '../orders/order-stock';
 import { Order } from '../orders/Order.entity';
 import { OrderLine } from '../orders/OrderLine.entity';
 import { PaymentRefusedError, PaymentUnavailableError, type PaymentProvider } from '../payments/payment-provider';
@@ -28,6 +28,13 @@ async function refusePriceChanges(cartId: string, rows: CartLineRow[]): Promise<
     reason: 'price-changed',
     lines: changed.map((r) => ({ lineId: r.id, name: r.name, was: r.unit_price_cents, now: r.price_cents })),
   });
+}
+
+function shortOfStock(rows: CartLineRow[]): (CartLineRow & { wanted: number }) | undefined {
+  const wanted = new Map<string, number>();
+  for (const r of rows) wanted.set(r.product_id, (wanted.get(r.product_id) ?? 0) + r.quantity);
+  const r = rows.find((x) => wanted.get(x.product_id)! > x.stock_on_hand);
+  return r && { ...r, wanted: wanted.get(r.product_id)! };
 }
 
 /** Cancels this cart's earlier unpaid orders (a second checkout replaces the first), so they hold no stock. */
@@ -64,6 +71,9 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
     const gone = rows.find((r) => !r.active);
     if (gone) throw new AppError('conflict', `${gone.name} is no longer sold; remove it from your cart to check out.`, undefined, { reason: 'not-sold', productId: gone.product_id });
     await refusePriceChanges(cartId, rows);
+    // What the shelf showed a moment ago already says no to most buyers of a sold-out part, without waiting on its row lock.
+    const short = shortOfStock(rows);
+    if (short) throw outOfStock(short.name, short.product_id, short.stock_on_hand, short.wanted);
 
     const replaced = await replaceEarlierOrders(em, cartId);
     const totals = cartTotals(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), pricingOf(settings));

@@ -8,6 +8,17 @@ export interface StockNeed {
   quantity: number;
 }
 
+/** The checkout's answer when the shelf cannot cover a line: 409, the product named, the cart untouched. */
+export function outOfStock(name: string, productId: string, available: number, wanted: number): AppError {
+  return new AppError('conflict', `${name} is out of stock: ${available === 0 ? 'none left' : `only ${available} left`}, ${wanted} wanted. Your cart is kept.`, undefined, {
+    reason: 'out-of-stock',
+    productId,
+    name,
+    available,
+    wanted,
+  });
+}
+
 /**
  * Takes units off the shelf for an order. One guarded update per product, in product-id order, so concurrent
  * checkouts lock rows in the same order (no deadlock) and stock can never go below zero.
@@ -27,14 +38,7 @@ export async function reserveStock(em: EntityManager, needs: StockNeed[]): Promi
     )) as [unknown[], number];
     if (rows.length === 0) {
       const [p] = (await em.query(`SELECT stock_on_hand, active FROM products WHERE id = $1`, [n.productId])) as { stock_on_hand: number; active: boolean }[];
-      const left = p?.active ? p.stock_on_hand : 0;
-      throw new AppError('conflict', `${n.name} is out of stock: ${left === 0 ? 'none left' : `only ${left} left`}, ${n.quantity} wanted. Your cart is kept.`, undefined, {
-        reason: 'out-of-stock',
-        productId: n.productId,
-        name: n.name,
-        available: left,
-        wanted: n.quantity,
-      });
+      throw outOfStock(n.name, n.productId, p?.active ? p.stock_on_hand : 0, n.quantity);
     }
   }
 }
