@@ -24,7 +24,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'unit',
-          include: ['shared/**/*.spec.ts', 'client/src/**/*.spec.ts', 'server/**/*.unit.spec.ts'],
+          include: ['shared/**/*.spec.ts', 'client/src/**/*.spec.ts', 'server/**/*.unit.spec.ts', 'standins/**/*.spec.ts'],
           environment: 'node',
         },
       },

@@ -15,9 +15,10 @@ stop_one() {
   local pid_file="$run_dir/$1.pid"
   if [ -f "$pid_file" ]; then
     local pid; pid=$(cat "$pid_file")
-    kill -TERM "$pid" 2>/dev/null || true
-    for _ in $(seq 1 50); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
-    kill -KILL "$pid" 2>/dev/null || true
+    # The pid is that of the stand-in's own process group (npx, tsx and node): signal them all, or node outlives npx.
+    kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true
+    for _ in $(seq 1 50); do kill -0 -- "-$pid" 2>/dev/null || break; sleep 0.1; done
+    kill -KILL -- "-$pid" 2>/dev/null || true
     rm -f "$pid_file"
   fi
   rm -f "$run_dir/$1.ready"
@@ -26,8 +27,11 @@ stop_one() {
 start_one() {
   local name=$1
   stop_one "$name"
+  # Job control gives the stand-in a process group of its own, led by the pid written below.
+  set -m
   npx tsx --tsconfig tsconfig.server.json "standins/$name/main.ts" >"$run_dir/$name.log" 2>&1 &
   echo $! >"$run_dir/$name.pid"
+  set +m
   for _ in $(seq 1 300); do
     [ -f "$run_dir/$name.ready" ] && { echo "loadline: stand-in $name is up"; return 0; }
     kill -0 "$(cat "$run_dir/$name.pid")" 2>/dev/null || break

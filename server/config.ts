@@ -110,6 +110,7 @@ export function parseConfig(env: Env = process.env): Config {
   if (!/^[^<>@\s]+@[^<>@\s]+\.[^<>@\s]+$|<[^<>@\s]+@[^<>@\s]+\.[^<>@\s]+>$/.test(mailFrom)) {
     problems.push(`MAIL_FROM must be an address like shop@example.test or Name <shop@example.test>, got '${mailFrom}'`);
   }
+  if (env.SMTP_USER && !env.SMTP_PASSWORD) problems.push('SMTP_PASSWORD is required when SMTP_USER is set');
   const mailCaptureUrl = env.MAIL_CAPTURE_URL || 'http://127.0.0.1:2526';
   if (!/^https?:\/\//.test(mailCaptureUrl)) problems.push(`MAIL_CAPTURE_URL must be an http:// URL, got '${mailCaptureUrl}'`);
 

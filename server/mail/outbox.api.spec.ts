@@ -60,6 +60,13 @@ describe('mail outbox', () => {
     await expect(enqueueMail(AppDataSource.manager, 'order-confirmed:44', mail)).rejects.toThrow(/inside a transaction/);
   });
 
+  it('the polling worker the server runs sends queued mail by itself', async () => {
+    worker = await startMailWorker(configFor(mailbox), { poll: true });
+    await AppDataSource.transaction((em) => enqueueMail(em, 'cancelled:5', mail));
+    await expect.poll(async () => (await mailbox.messages()).length, { timeout: 10_000, interval: 200 }).toBe(1);
+    await expect.poll(async () => (await outbox().findOneByOrFail({ dedupeKey: 'cancelled:5' })).sentAt, { timeout: 5000 }).toBeInstanceOf(Date);
+  });
+
   it('running the send step twice for one outbox row sends the mail once', async () => {
     await AppDataSource.transaction((em) => enqueueMail(em, 'refund:7', mail));
     const row = await outbox().findOneByOrFail({ dedupeKey: 'refund:7' });

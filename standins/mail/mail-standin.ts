@@ -58,6 +58,8 @@ export async function startMailStandin(options: MailStandinOptions): Promise<Mai
   const smtp = new SMTPServer({
     secure: false,
     authOptional: true,
+    // Sign-in is offered without TLS on loopback, so a configured SMTP_USER works against the stand-in too.
+    allowInsecureAuth: true,
     disabledCommands: ['STARTTLS'],
     banner: 'Loadline mail stand-in',
     size: 10 * 1024 * 1024,

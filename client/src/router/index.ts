@@ -33,6 +33,7 @@ export const routeNames = [
   'staff-order',
   'warehouse-home',
   'admin-users',
+  'admin-dev-mail',
   'forbidden',
   'not-found',
 ] as const;
@@ -92,6 +93,7 @@ const children: (NamedRoute | (RouteRecordRaw & { children: NamedRoute[] }))[] =
   },
   { path: 'warehouse', name: 'warehouse-home', component: () => import('../pages/warehouse/WarehouseHomePage.vue'), meta: { area: 'warehouse', title: 'Warehouse' } },
   { path: 'admin/users', name: 'admin-users', component: () => import('../pages/admin/UsersPage.vue'), meta: { area: 'admin', title: 'Accounts' } },
+  { path: 'admin/dev-mail', name: 'admin-dev-mail', component: () => import('../pages/admin/DevMailboxPage.vue'), meta: { area: 'admin', title: 'Development mailbox' } },
   { path: 'forbidden', name: 'forbidden', component: () => import('../pages/ForbiddenPage.vue'), meta: { title: 'Not for this account' } },
   { path: ':rest(.*)*', name: 'not-found', component: () => import('../pages/NotFoundPage.vue'), meta: { title: 'Page not found' } },
 ];

@@ -1,0 +1,30 @@
+import { expect, type Locator, type Page } from '@playwright/test';
+
+/** The admin's development mailbox: what the local mail stand-in caught. */
+export class DevMailboxPage {
+  constructor(private readonly page: Page) {}
+
+  async openFromAccounts() {
+    await this.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Accounts' }).click();
+    await this.page.getByRole('link', { name: 'development mailbox' }).click();
+    await expect(this.page.getByRole('heading', { name: 'Development mailbox' })).toBeVisible();
+  }
+
+  /** The mail worker sends within a few seconds; refresh until the mail is listed. */
+  async waitForMail(subject: string, to: string): Promise<Locator> {
+    const item = this.page.getByRole('navigation', { name: 'Captured mail' }).getByRole('button').filter({ hasText: subject }).filter({ hasText: to });
+    await expect(async () => {
+      await this.page.getByRole('button', { name: 'Refresh' }).click();
+      await expect(item).toHaveCount(1, { timeout: 1000 });
+    }).toPass({ timeout: 20_000 });
+    return item;
+  }
+
+  mail(subject: string): Locator {
+    return this.page.getByRole('article', { name: subject });
+  }
+
+  async showText() {
+    await this.page.getByRole('tab', { name: 'Text part' }).click();
+  }
+}
