@@ -1,11 +1,11 @@
 import type { EntityManager } from 'typeorm';
-import { cartTotals } from '../../shared/cart-totals';
 import type { CartDto, CartLineDto, SpringSetDto } from '../../shared/commerce/cart.dto';
 import type { ProductKind } from '../../shared/catalogue';
 import type { SpringVerdict } from '../../shared/engine/types';
 import { lineTotalCents } from '../../shared/money';
 import type { Config } from '../config';
-import { getShopSettings, pricingOf, toShopPublicDto } from '../shop/shop-settings.service';
+import { getShopSettings, toShopPublicDto } from '../shop/shop-settings.service';
+import { cartTotalsFor } from './cart-pricing';
 import { SpringSet } from './SpringSet.entity';
 
 export const toSpringSetDto = (s: SpringSet): SpringSetDto => ({
@@ -87,7 +87,7 @@ export async function toCartDto(em: EntityManager, config: Config, cartId: strin
   return {
     lines,
     sets: sets.map(toSpringSetDto),
-    totals: cartTotals(lines, pricingOf(settings)),
+    totals: cartTotalsFor(lines, settings),
     shop: toShopPublicDto(settings, config),
     itemCount: lines.reduce((s, l) => s + l.quantity, 0),
     currency: settings.currency,

@@ -1,5 +1,4 @@
 import type { EntityManager } from 'typeorm';
-import { cartTotals } from '../../shared/cart-totals';
 import type { CheckoutDto, CheckoutResultDto } from '../../shared/commerce/checkout.dto';
 import { lineTotalCents } from '../../shared/money';
 import { cartLineRows, type CartLineRow } from '../cart/cart-dto';
@@ -14,7 +13,8 @@ import { outOfStock, releaseStock, reserveStock } from '../orders/order-stock';
 import { Order } from '../orders/Order.entity';
 import { OrderLine } from '../orders/OrderLine.entity';
 import { PaymentRefusedError, PaymentUnavailableError, type PaymentProvider } from '../payments/payment-provider';
-import { getShopSettings, pricingOf, reservationMinutesOf } from '../shop/shop-settings.service';
+import { getShopSettings, reservationMinutesOf } from '../shop/shop-settings.service';
+import { cartTotalsFor } from '../cart/cart-pricing';
 
 /** A price that moved since the line was added is brought up to date and shown; checkout never charges it silently. */
 async function refusePriceChanges(cartId: string, rows: CartLineRow[]): Promise<void> {
@@ -76,7 +76,7 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
     if (short) throw outOfStock(short.name, short.product_id, short.stock_on_hand, short.wanted);
 
     const replaced = await replaceEarlierOrders(em, cartId);
-    const totals = cartTotals(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), pricingOf(settings));
+    const totals = cartTotalsFor(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), settings);
     const orders = em.getRepository(Order);
     const inserted = await orders.insert({
       userId: owner.userId,

@@ -4,7 +4,9 @@ import type { SpringVerdict } from '../engine/types';
 import type { CartTotals, PricingSettings } from '../cart-totals';
 import type { CurrencyCode } from '../money';
 
-export const maxLineQuantity = 20;
+import { maxLineQuantity } from './limits';
+
+export { maxLineQuantity };
 
 const quantity = () => [
   IsInt({ message: 'Quantity is a whole number.' }),
