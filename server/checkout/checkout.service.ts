@@ -2,7 +2,7 @@ import type { EntityManager } from 'typeorm';
 import type { CheckoutDto, CheckoutResultDto } from '../../shared/commerce/checkout.dto';
 import { lineTotalCents } from '../../shared/money';
 import { cartLineRows, type CartLineRow } from '../cart/cart-dto';
-import { findCart, type CartOwner } from '../cart/cart-identity';
+import type { CartOwner } from '../cart/cart-identity';
 import { SpringSet } from '../cart/SpringSet.entity';
 import type { Config } from '../config';
 import { AppDataSource } from '../db/data-source';
@@ -61,11 +61,14 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
   const settings = await getShopSettings();
   const minutes = reservationMinutesOf(settings, config);
 
-  const { order, replaced } = await AppDataSource.transaction(async (em) => {
-    const { cartId } = await findCart(em, owner, false);
+  const { order, replaced, rows } = await AppDataSource.transaction(async (em) => {
+    // The guest's or rider's cart, locked: checkouts of one cart take turns, so a double click cannot reserve twice.
+    const [cart] = (await em.query(
+      owner.userId ? `SELECT id FROM carts WHERE user_id = $1 FOR UPDATE` : `SELECT id FROM carts WHERE id = $1 AND user_id IS NULL FOR UPDATE`,
+      [owner.userId ?? owner.guestCartId],
+    )) as { id: string }[];
+    const cartId = owner.userId || owner.guestCartId ? cart?.id : undefined;
     if (!cartId) throw new AppError('conflict', 'Your cart is empty.', undefined, { reason: 'empty-cart' });
-    // Checkouts of one cart take turns, so a double click cannot reserve twice.
-    await em.query(`SELECT id FROM carts WHERE id = $1 FOR UPDATE`, [cartId]);
     const rows = await cartLineRows(em, cartId);
     if (!rows.length) throw new AppError('conflict', 'Your cart is empty.', undefined, { reason: 'empty-cart' });
     const gone = rows.find((r) => !r.active);
@@ -77,27 +80,16 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
 
     const replaced = await replaceEarlierOrders(em, cartId);
     const totals = cartTotalsFor(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), settings);
-    const orders = em.getRepository(Order);
-    const inserted = await orders.insert({
-      userId: owner.userId,
-      cartId,
-      email: dto.email.trim().toLowerCase(),
-      customerName: dto.shippingAddress.name.trim(),
-      shippingAddress: { ...dto.shippingAddress },
-      status: 'pending',
-      paymentStatus: 'awaiting',
-      fulfilmentStatus: 'unfulfilled',
-      currency: totals.currency,
-      subtotalCents: totals.subtotalCents,
-      shippingCents: totals.shippingCents,
-      vatCents: totals.vatCents,
-      totalCents: totals.totalCents,
-      vatRateBasisPoints: settings.vatRateBasisPoints,
-      reservedUntil: new Date(Date.now() + minutes * 60_000),
-      stockHeld: true,
-    });
-    const order = await orders.findOneByOrFail({ id: (inserted.identifiers[0] as { id: string }).id });
-
+    // Inserted by hand so the database's own number and the reservation time come back in the same round trip.
+    const [order] = (await em.query(
+      `INSERT INTO orders (user_id, cart_id, email, customer_name, shipping_address, status, payment_status, fulfilment_status, currency,
+                           subtotal_cents, shipping_cents, vat_cents, total_cents, vat_rate_bp, reserved_until, stock_held)
+       VALUES ($1, $2, $3, $4, $5, 'pending', 'awaiting', 'unfulfilled', $6, $7, $8, $9, $10, $11, now() + make_interval(mins => $12), true)
+       RETURNING id, number, email, currency, shipping_cents AS "shippingCents", reserved_until AS "reservedUntil"`,
+      [owner.userId, cartId, dto.email.trim().toLowerCase(), dto.shippingAddress.name.trim(), JSON.stringify({ ...dto.shippingAddress }), totals.currency,
+        totals.subtotalCents, totals.shippingCents, totals.vatCents, totals.totalCents, settings.vatRateBasisPoints, minutes],
+    )) as { id: string; number: string; email: string; currency: string; shippingCents: number; reservedUntil: Date }[];
+    if (!order) throw new Error('The order insert returned nothing');
     const setIds = [...new Set(rows.map((r) => r.spring_set_id).filter((x): x is string => !!x))];
     const sets = setIds.length ? await em.getRepository(SpringSet).createQueryBuilder('s').where('s.id IN (:...setIds)', { setIds }).getMany() : [];
     const setupOf = (r: CartLineRow) => sets.find((s) => s.id === r.spring_set_id)?.setup.find((x) => x.productId === r.product_id) ?? null;
@@ -117,7 +109,7 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
       })),
     );
     await reserveStock(em, rows.map((r) => ({ productId: r.product_id, name: r.name, quantity: r.quantity })));
-    return { order, replaced };
+    return { order, replaced, rows };
   });
 
   for (const id of replaced) await provider.expireCheckoutSession(id).catch(() => undefined);
@@ -125,7 +117,6 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
   const token = orderAccessToken(config, order.id);
   let session;
   try {
-    const lines = await AppDataSource.getRepository(OrderLine).find({ where: { orderId: order.id }, order: { position: 'ASC' } });
     session = await provider.createCheckoutSession(
       {
         orderId: order.id,
@@ -133,7 +124,7 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
         email: order.email,
         currency: order.currency,
         lines: [
-          ...lines.map((l) => ({ name: l.name, sku: l.sku, unitAmountCents: l.unitPriceCents, quantity: l.quantity })),
+          ...rows.map((l) => ({ name: l.name, sku: l.sku, unitAmountCents: l.unit_price_cents, quantity: l.quantity })),
           ...(order.shippingCents > 0 ? [{ name: 'Shipping', sku: 'SHIPPING', unitAmountCents: order.shippingCents, quantity: 1 }] : []),
         ],
         successUrl: `${config.publicOrigin}/checkout/done?order=${order.id}&token=${token}`,

@@ -16,8 +16,25 @@ export const demoShopSettings: Omit<ShopSettings, 'id' | 'updatedAt'> = {
   reservationMinutes: null,
 };
 
-/** The one row of shop settings; written from the demo figures the first time anything asks. */
-export async function getShopSettings(em: EntityManager = AppDataSource.manager): Promise<ShopSettings> {
+// Read on every checkout and cart view; the row changes rarely, so each server keeps it for a few seconds.
+const cacheMs = 5_000;
+let cached: { at: number; value: ShopSettings } | undefined;
+
+/** Forgets the kept copy (the settings page calls it after a save; tests after writing the row). */
+export function shopSettingsChanged(): void {
+  cached = undefined;
+}
+
+/** The one row of shop settings; written from the demo figures the first time anything asks. Inside a transaction it is read fresh. */
+export async function getShopSettings(em?: EntityManager): Promise<ShopSettings> {
+  if (em) return readShopSettings(em);
+  if (cached && Date.now() - cached.at < cacheMs) return cached.value;
+  const value = await readShopSettings(AppDataSource.manager);
+  cached = { at: Date.now(), value };
+  return value;
+}
+
+async function readShopSettings(em: EntityManager): Promise<ShopSettings> {
   const repo = em.getRepository(ShopSettings);
   const found = await repo.findOneBy({ id: 1 });
   if (found) return found;

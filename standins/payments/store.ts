@@ -79,7 +79,7 @@ export class Store {
   }
 
   changed(): void {
-    this.timer ??= setTimeout(() => this.flush(), 50);
+    this.timer ??= setTimeout(() => this.flush(), 250);
   }
 
   flush(): void {

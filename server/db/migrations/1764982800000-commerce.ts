@@ -89,6 +89,9 @@ export class Commerce1764982800000 implements MigrationInterface {
       )`);
     await q.query(`CREATE INDEX orders_pending_until ON orders (reserved_until) WHERE status = 'pending' AND stock_held`);
     await q.query(`CREATE INDEX orders_user ON orders (user_id, created_at DESC)`);
+    // A second checkout of a cart finds the first one's unpaid order through this.
+    await q.query(`CREATE INDEX orders_cart_pending ON orders (cart_id) WHERE status = 'pending'`);
+    await q.query(`CREATE INDEX orders_payment_intent ON orders (payment_intent_id) WHERE payment_intent_id IS NOT NULL`);
     await q.query(`CREATE INDEX orders_created ON orders (created_at DESC)`);
     await q.query(`
       CREATE TABLE order_lines (
