@@ -36,15 +36,18 @@ COMMIT;
 }
 
 /** The payment stand-in in its own process, so the app's calls to it cross a real socket as in production. */
-async function startStandin(): Promise<() => void> {
+async function startStandin(): Promise<() => Promise<void>> {
   const runDir = mkdtempSync(join(tmpdir(), 'loadline-bench-run-'));
   const child = spawn(process.execPath, [...process.execArgv, fileURLToPath(new URL('../standins/payments/main.ts', import.meta.url))], {
     env: { ...process.env, STRIPE_API_PORT: String(standinPort), LOADLINE_RUN_DIR: runDir, PAYMENTS_WEBHOOK_URL: '' },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   for (let i = 0; i < 100 && !existsSync(join(runDir, 'standins', 'payments.ready')); i++) await new Promise((r) => setTimeout(r, 100));
-  return () => {
-    child.kill('SIGTERM');
+  return async () => {
+    await new Promise((r) => {
+      child.once('exit', r);
+      child.kill('SIGTERM');
+    });
     rmSync(runDir, { recursive: true, force: true });
   };
 }
@@ -80,17 +83,30 @@ export async function run(): Promise<void> {
     let next = 0;
     const latencies: number[] = [];
     let failures = 0;
+    const failedWith = new Map<string, number>();
     const checkoutOnce = async (cart: string) => {
       const t0 = performance.now();
       const res = await fetch(`${app!.url}/api/checkout`, { method: 'POST', headers: { 'Content-Type': 'application/json', Cookie: `loadline_cart=${cart}` }, body });
       await res.arrayBuffer();
       if (res.status === 201) latencies.push(performance.now() - t0);
-      else failures += 1;
+      else {
+        failures += 1;
+        const key = `${res.status}`;
+        failedWith.set(key, (failedWith.get(key) ?? 0) + 1);
+      }
     };
     // Warm-up: a few checkouts so JIT, pools and the stand-in are ready.
     await Promise.all(Array.from({ length: 20 }, () => checkoutOnce(carts[next++]!)));
+    // One buyer alone, for the floor of a checkout's own latency on this machine.
+    const alone: number[] = [];
+    for (let i = 0; i < 10; i++) {
+      const t0 = performance.now();
+      await checkoutOnce(carts[next++]!);
+      alone.push(performance.now() - t0);
+    }
     latencies.length = 0;
     failures = 0;
+    failedWith.clear();
     const until = performance.now() + seconds * 1000;
     const start = performance.now();
     await Promise.all(
@@ -104,10 +120,12 @@ export async function run(): Promise<void> {
     console.log(`\ncheckout: ${buyers} concurrent buyers for ${seconds} s on one hot product; pgbench floor with ${pgbenchClients} clients for ${seconds} s`);
     console.log(`  pgbench floor (guarded update + order insert): ${floor.toFixed(0)} tps`);
     console.log(`  checkout through the app and the payment stand-in: ${ordersPerSec.toFixed(0)} orders/s (${latencies.length} orders, ${failures} failed)`);
+    if (failures) console.log(`  failed answers by status: ${JSON.stringify(Object.fromEntries(failedWith))}`);
+    console.log(`  one buyer alone: ${[...alone].sort((a, b) => a - b)[5]!.toFixed(0)} ms per checkout (median of 10)`);
     console.log(`  ratio to the floor: ${(ordersPerSec / floor).toFixed(3)} (target ≥ 0.3)`);
     console.log(`  latency p50 ${pct(sorted, 50).toFixed(0)} ms, p99 ${pct(sorted, 99).toFixed(0)} ms (target p99 < 1000 ms)`);
   } finally {
     await app?.close();
-    stopStandin();
+    await stopStandin();
   }
 }
