@@ -76,7 +76,8 @@ export async function addSpringSet(em: EntityManager, config: Config, cache: Bik
       staticSagMm: c.spring.staticSagMm,
       riderSagMm: c.spring.riderSagMm,
       targets: { staticSagMm: targets.staticSagMm, riderSagMm: targets.riderSagMm },
-      toleranceMm: DEFAULT_SAG_TOLERANCE_MM,
+      // The fitment's own static-sag tolerance when the engine gives one, else the sag check's default.
+      toleranceMm: (targets as { staticSagToleranceMm?: number }).staticSagToleranceMm ?? DEFAULT_SAG_TOLERANCE_MM,
       verdict: c.verdict,
     });
     needs.push({ productId: c.spring.id, quantity: springCount, verdict: c.verdict });
