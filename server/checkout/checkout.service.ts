@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { CheckoutDto, CheckoutResultDto } from '../../shared/commerce/checkout.dto';
 import { lineTotalCents } from '../../shared/money';
-import { cartLineRows, type CartLineRow } from '../cart/cart-dto';
+import type { CartLineRow } from '../cart/cart-dto';
 import type { CartOwner } from '../cart/cart-identity';
 import { Gate } from './gate';
 import { SpringSet } from '../cart/SpringSet.entity';
@@ -66,15 +66,20 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
   const minutes = reservationMinutesOf(settings, config);
 
   const { order, replaced, rows } = await gate.run(() => AppDataSource.transaction(async (em) => {
-    // The guest's or rider's cart, locked: checkouts of one cart take turns, so a double click cannot reserve twice.
-    const [cart] = (await em.query(
-      owner.userId ? `SELECT id FROM carts WHERE user_id = $1 FOR UPDATE` : `SELECT id FROM carts WHERE id = $1 AND user_id IS NULL FOR UPDATE`,
+    // The guest's or rider's cart, locked (checkouts of one cart take turns, so a double click cannot reserve twice),
+    // its lines, and whether an earlier checkout of it is still open: one round trip.
+    const found = (await em.query(
+      `WITH c AS (SELECT id FROM carts WHERE ${owner.userId ? 'user_id = $1' : 'id = $1 AND user_id IS NULL'} FOR UPDATE)
+       SELECT c.id AS cart_id, EXISTS (SELECT 1 FROM orders o WHERE o.cart_id = c.id AND o.status = 'pending') AS has_pending,
+              l.id, l.product_id, l.quantity, l.unit_price_cents, l.spring_set_id, l.verdict,
+              p.sku, p.name, p.kind, p.price_cents, p.stock_on_hand, p.active
+         FROM c LEFT JOIN cart_lines l ON l.cart_id = c.id LEFT JOIN products p ON p.id = l.product_id
+        ORDER BY l.spring_set_id NULLS LAST, l.created_at, p.sku`,
       [owner.userId ?? owner.guestCartId],
-    )) as { id: string }[];
-    const cartId = owner.userId || owner.guestCartId ? cart?.id : undefined;
-    if (!cartId) throw new AppError('conflict', 'Your cart is empty.', undefined, { reason: 'empty-cart' });
-    const rows = await cartLineRows(em, cartId);
-    if (!rows.length) throw new AppError('conflict', 'Your cart is empty.', undefined, { reason: 'empty-cart' });
+    )) as (CartLineRow & { cart_id: string; has_pending: boolean })[];
+    const cartId = owner.userId || owner.guestCartId ? found[0]?.cart_id : undefined;
+    const rows: CartLineRow[] = found.filter((r) => r.id !== null);
+    if (!cartId || !rows.length) throw new AppError('conflict', 'Your cart is empty.', undefined, { reason: 'empty-cart' });
     const gone = rows.find((r) => !r.active);
     if (gone) throw new AppError('conflict', `${gone.name} is no longer sold; remove it from your cart to check out.`, undefined, { reason: 'not-sold', productId: gone.product_id });
     await refusePriceChanges(cartId, rows);
@@ -82,7 +87,7 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
     const short = shortOfStock(rows);
     if (short) throw outOfStock(short.name, short.product_id, short.stock_on_hand, short.wanted);
 
-    const replaced = await replaceEarlierOrders(em, cartId);
+    const replaced = found[0]!.has_pending ? await replaceEarlierOrders(em, cartId) : [];
     const totals = cartTotalsFor(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), settings);
     // Inserted by hand so the database's own number and the reservation time come back in the same round trip.
     const [order] = (await em.query(
