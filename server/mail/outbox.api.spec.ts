@@ -24,10 +24,11 @@ afterEach(async () => {
 
 const configFor = (box: TestMailbox) => testConfig({ smtpPort: box.smtpPort, mailCaptureUrl: box.captureUrl });
 const jobs = async () =>
-  (await AppDataSource.query(`SELECT state, start_after > now() AS later FROM ${jobSchema}.job WHERE name = $1`, [mailQueue])) as {
-    state: string;
-    later: boolean;
-  }[];
+  // backedOff: the next try is set at least the configured delay (1 s here) after the failed one started.
+  (await AppDataSource.query(
+    `SELECT state, COALESCE(start_after - started_on >= interval '1 second', false) AS "backedOff" FROM ${jobSchema}.job WHERE name = $1`,
+    [mailQueue],
+  )) as { state: string; backedOff: boolean }[];
 const outbox = () => AppDataSource.getRepository(MailOutbox);
 
 describe('mail outbox', () => {
@@ -113,7 +114,7 @@ describe('password reset mail', () => {
     expect(await worker.drain()).toBe(0);
     // The failed try is on record and the job waits for its backoff before the next one.
     expect((await outbox().findOneOrFail({ where: {} })).lastError).toMatch(/ECONNREFUSED/);
-    expect(await jobs()).toEqual([{ state: 'retry', later: true }]);
+    expect(await jobs()).toEqual([{ state: 'retry', backedOff: true }]);
 
     await mailbox.start();
     let sent = 0;
