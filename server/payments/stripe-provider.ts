@@ -106,7 +106,8 @@ export class StripePaymentProvider implements PaymentProvider {
     if (!signatureHeader) throw new PaymentSignatureError('No signature header');
     try {
       const e = this.stripe.webhooks.constructEvent(rawBody, signatureHeader, this.webhookSecret);
-      return { id: e.id, type: e.type, object: e.data.object as unknown as Record<string, unknown> };
+      // A signed event without an object is still acknowledged, as one that concerns no order.
+      return { id: e.id, type: e.type, object: ((e.data as { object?: unknown } | undefined)?.object ?? {}) as Record<string, unknown> };
     } catch (e) {
       throw new PaymentSignatureError((e as Error).message);
     }
