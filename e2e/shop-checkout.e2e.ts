@@ -49,6 +49,13 @@ test('a new rider finds springs for a demo bike, adds the set, checks out as a g
   await page.getByRole('link', { name: 'Open the setup sheet' }).click();
   await expect(page.getByRole('heading', { name: /Setup sheet · order LL-/ })).toBeVisible();
   await expect(page.getByText('Preload').first()).toBeVisible();
+
+  // Before packing the buyer may cancel: the payment is refunded and the parts go back on the shelf.
+  await page.goBack();
+  page.once('dialog', (d) => void d.accept());
+  await page.getByRole('button', { name: 'Cancel order' }).click();
+  await expect(page.getByTestId('order-states')).toContainText('Cancelled');
+  await expect(page.getByTestId('order-states')).toContainText('Refunded');
 });
 
 test('a declined card leaves the payment failed with a clear message, and the cart is kept', async ({ page }) => {
@@ -66,6 +73,11 @@ test('a declined card leaves the payment failed with a clear message, and the ca
   await expect(page.getByTestId('payment-failed')).toContainText('your cart is kept');
   await expect(page.getByTestId('order-states')).toContainText('Payment failed');
   await expect(page.getByTestId('cart-button')).toContainText(count);
+
+  // The buyer gives up on this order; its parts go back on the shelf at once rather than when the hold expires.
+  const url = new URL(page.url());
+  const cancelled = await page.request.post(`/api/orders/${url.searchParams.get('order')}/cancel?token=${url.searchParams.get('token')}`);
+  expect(cancelled.status()).toBe(200);
 });
 
 test('the checkout form names each field that needs attention', async ({ page }) => {

@@ -66,8 +66,8 @@ describe('cart', () => {
     expect(res.status).toBe(201);
     const cart = res.body as CartDto;
     const byProduct = new Map(cart.lines.map((l) => [l.productId, l]));
-    // A pair of fork springs (the fitment's spring count), one shock spring, and the adapter the 85 N/mm spring needs here.
-    expect(byProduct.get(okFork.id)?.quantity).toBe(2);
+    // One fork set (the catalogue sells fork springs as the fork's pair), one shock spring, and the adapter it needs here.
+    expect(byProduct.get(okFork.id)?.quantity).toBe(1);
     expect(byProduct.get(shock85.id)?.quantity).toBe(1);
     expect(byProduct.get(adapter.id)?.quantity).toBe(1);
     expect(byProduct.get(shock85.id)?.unitPriceCents).toBe(15_900);
@@ -77,6 +77,7 @@ describe('cart', () => {
     expect(set.loads.map((l) => l.station)).toEqual(['rider']);
     const shockSetup = set.setup.find((s) => s.end === 'shock')!;
     // The figures are the engine's for this load, exactly as the recommendation gave them.
+    expect(set.setup.find((s) => s.end === 'fork')!.springCount).toBe(2);
     expect(shockSetup).toMatchObject({ preloadMm: shock85.preloadMm, staticSagMm: shock85.staticSagMm, riderSagMm: shock85.riderSagMm, rateNPerMm: shock85.rateNPerMm, verdict: 'ok' });
     expect(forks.map((f) => f.id)).toContain(okFork.id);
   });

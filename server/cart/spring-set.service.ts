@@ -80,7 +80,8 @@ export async function addSpringSet(em: EntityManager, config: Config, cache: Bik
       toleranceMm: (targets as { staticSagToleranceMm?: number }).staticSagToleranceMm ?? DEFAULT_SAG_TOLERANCE_MM,
       verdict: c.verdict,
     });
-    needs.push({ productId: c.spring.id, quantity: springCount, verdict: c.verdict });
+    // A fork spring product is the fork's set (the catalogue sells them as a pair), so one per fork; one shock spring per shock.
+    needs.push({ productId: c.spring.id, quantity: 1, verdict: c.verdict });
     for (const a of c.spring.adapters) needs.push({ productId: a.id, quantity: a.quantity, verdict: null });
   }
   if (Object.keys(problems).length) {

@@ -36,7 +36,9 @@ const tick = setInterval(() => {
   deliverDue(store, { retryBaseMs, retryMaxMs: 60_000, log });
 }, 100);
 
-const server = app.listen(port, host, () => {
+// Express 5 calls this back with the error when the port is taken; only a real listen writes the ready file.
+const server = app.listen(port, host, (err?: Error) => {
+  if (err) return;
   mkdirSync(runDir, { recursive: true });
   writeFileSync(join(runDir, 'payments.ready'), `${publicUrl}\n`);
   log(`listening on ${publicUrl}; webhook endpoint ${env.PAYMENTS_WEBHOOK_URL ?? '(none configured)'}`);
