@@ -19,19 +19,26 @@ export const demoShopSettings: Omit<ShopSettings, 'id' | 'updatedAt'> = {
 // Read on every checkout and cart view; the row changes rarely, so each server keeps it for a few seconds.
 const cacheMs = 5_000;
 let cached: { at: number; value: ShopSettings } | undefined;
+// One read at a time: a rush of checkouts on a cold copy shares it instead of taking a pooled connection each.
+let reading: Promise<ShopSettings> | undefined;
 
 /** Forgets the kept copy (the settings page calls it after a save; tests after writing the row). */
 export function shopSettingsChanged(): void {
   cached = undefined;
+  reading = undefined;
 }
 
 /** The one row of shop settings; written from the demo figures the first time anything asks. Inside a transaction it is read fresh. */
 export async function getShopSettings(em?: EntityManager): Promise<ShopSettings> {
   if (em) return readShopSettings(em);
   if (cached && Date.now() - cached.at < cacheMs) return cached.value;
-  const value = await readShopSettings(AppDataSource.manager);
-  cached = { at: Date.now(), value };
-  return value;
+  reading ??= readShopSettings(AppDataSource.manager)
+    .then((value) => {
+      cached = { at: Date.now(), value };
+      return value;
+    })
+    .finally(() => (reading = undefined));
+  return reading;
 }
 
 async function readShopSettings(em: EntityManager): Promise<ShopSettings> {
