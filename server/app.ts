@@ -8,6 +8,7 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
 import { auditRoutes } from './audit/audit.routes';
+import { bikeRoutes } from './bikes/bikes.routes';
 import { productImageFiles, publicProductRoutes, staffCatalogueRoutes, staffProductRoutes } from './catalogue/catalogue.routes';
 import { getConfig, type Config } from './config';
 import { cartRoutes } from './cart/cart.routes';
@@ -101,6 +102,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/cart', cartRoutes(config));
   api.use('/checkout', checkoutRoutes(config, payments));
   api.use('/orders', orderRoutes(config, payments));
+  api.use('/bikes', bikeRoutes(config));
   // Reads the local mail stand-in; a production server has no such thing and no such route.
   if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
   api.use(apiDescriptionRoutes());

@@ -15,6 +15,8 @@ export const routeNames = [
   'my-orders',
   'order',
   'order-setup-sheet',
+  'my-bikes',
+  'bike',
   'sign-in',
   'register',
   'forgot-password',
@@ -67,6 +69,8 @@ const children: (NamedRoute | (RouteRecordRaw & { children: NamedRoute[] }))[] =
   // Open to guests too: the order's link carries its token.
   { path: 'orders/:id', name: 'order', component: () => import('../pages/account/OrderPage.vue'), props: true, meta: { title: 'Order' } },
   { path: 'orders/:id/setup-sheet', name: 'order-setup-sheet', component: () => import('../pages/account/OrderSetupSheetPage.vue'), props: true, meta: { title: 'Setup sheet' } },
+  { path: 'bikes', name: 'my-bikes', component: () => import('../pages/account/MyBikesPage.vue'), meta: { area: 'account', title: 'My bikes' } },
+  { path: 'bikes/:id', name: 'bike', component: () => import('../pages/account/BikePage.vue'), props: true, meta: { area: 'account', title: 'My bike' } },
   { path: 'sign-in', name: 'sign-in', component: () => import('../pages/account/SignInPage.vue'), meta: { guestOnly: true, title: 'Sign in' } },
   { path: 'register', name: 'register', component: () => import('../pages/account/RegisterPage.vue'), meta: { guestOnly: true, title: 'Create an account' } },
   { path: 'forgot-password', name: 'forgot-password', component: () => import('../pages/account/ForgotPasswordPage.vue'), meta: { title: 'Forgot password' } },

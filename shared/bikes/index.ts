@@ -1,0 +1,2 @@
+export * from './bike.dto';
+export * from './bike-sag-input';
