@@ -4,6 +4,7 @@ import type { Config } from '../config';
 import { limiter } from '../http/rate-limit';
 import { parseBody } from '../http/validate';
 import { createBikeCache, recommend } from './recommendations.service';
+import { countRecommendationServed } from './served-counter';
 
 /** Spring recommendations for a rider's bike and load: no sign-in, limited per address like the calculations. */
 export function recommendationRoutes(config: Config): Router {
@@ -12,6 +13,7 @@ export function recommendationRoutes(config: Config): Router {
   r.use(limiter({ name: 'recommendations', windowMs: 60_000, limit: config.calcRateLimitPerMinute }));
   r.post('/', async (req, res) => {
     res.json(await recommend(await parseBody(RecommendationRequestDto, req.body), cache));
+    countRecommendationServed();
   });
   return r;
 }
