@@ -5,6 +5,7 @@ import { verifyToken } from '../accounts/tokens';
 import type { User } from '../accounts/User.entity';
 import type { Config } from '../config';
 import { AppError } from '../errors';
+import { mark, rolesMark } from './route-meta';
 
 export const sessionCookie = 'loadline_session';
 
@@ -51,11 +52,12 @@ export function requireUser(req: Request): User {
 
 /** Lets the request through only for the given roles: 401 when signed out, 403 for another role. */
 export function requireRole(...allowed: Role[]): RequestHandler {
-  return (req: Request, _res: Response, next: NextFunction) => {
+  const check = (req: Request, _res: Response, next: NextFunction) => {
     const user = requireUser(req);
     if (!allowed.includes(user.role)) throw new AppError('forbidden', 'Your account may not do this.');
     next();
   };
+  return mark(check, { [rolesMark]: allowed });
 }
 
 export function setSessionCookie(res: Response, config: Config, token: string): void {
