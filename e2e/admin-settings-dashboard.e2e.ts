@@ -56,3 +56,14 @@ test('staff see the dashboard with each chart’s figures in a table beside it, 
   await page.getByRole('button', { name: 'Show' }).click();
   await expect(page.getByText('The end day is on or after the start day.')).toBeVisible();
 });
+
+test('an admin changes an account’s role from the accounts table', async ({ page, signIn }) => {
+  await signIn('admin');
+  const email = `counter-${Date.now()}@example.test`;
+  const made = await page.request.post('/api/admin/users', { data: { email, displayName: 'Ivo Castrell', password: 'counter-first-pw', role: 'staff' } });
+  expect(made.status()).toBe(201);
+  await page.goto('/admin/users');
+  await page.getByLabel(`Role of ${email}`).click();
+  await page.getByRole('option', { name: 'warehouse' }).click();
+  await expect.poll(async () => ((await (await page.request.get('/api/admin/users')).json()) as { items: { email: string; role: string }[] }).items.find((u) => u.email === email)?.role).toBe('warehouse');
+});
