@@ -20,6 +20,8 @@ import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
 import { devMailRoutes } from './mail/dev-mail.routes';
 import { apiDescriptionRoutes } from './openapi/openapi.routes';
+import { adminShopSettingsRoutes, shopIdentityRoutes } from './shop/shop-settings.routes';
+import { staffDashboardRoutes } from './dashboard/dashboard.routes';
 import { recommendationRoutes } from './recommendations/recommendations.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
@@ -92,6 +94,9 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/health', healthRoutes());
   api.use('/auth', authRoutes(config));
   api.use('/admin/users', adminUserRoutes());
+  api.use('/admin/shop-settings', adminShopSettingsRoutes());
+  api.use('/shop', shopIdentityRoutes());
+  api.use('/staff/dashboard', staffDashboardRoutes());
   api.use('/fitments', publicFitmentRoutes());
   api.use('/staff/fitments', staffFitmentRoutes(config.csvImportMaxBytes));
   api.use('/staff/audit', auditRoutes());

@@ -96,6 +96,19 @@ describe('several app servers on one database', () => {
     expect((await b.post('/api/auth/login').send({ email: 'Alternating@Example.test', password: testPassword })).status).toBe(429);
   });
 
+  it('an account disabled through one server is refused by the other on its very next request', async () => {
+    const admin = await createUser({ role: 'admin', email: 'admin-two@example.test' });
+    const staff = await createUser({ role: 'staff', email: 'staff-two@example.test' });
+    const login = async (http: ReturnType<typeof request>, email: string) =>
+      ({ Authorization: `Bearer ${(await http.post('/api/auth/login').send({ email, password: testPassword }).expect(200)).body.token as string}` });
+    const adminOnA = await login(a, admin.email);
+    const staffOnB = await login(b, staff.email);
+    await b.get('/api/staff/products').set(staffOnB).expect(200);
+    await a.patch(`/api/admin/users/${staff.id}`).set(adminOnA).send({ disabled: true }).expect(200);
+    // No wait: B reads the account from the database on each request, so there is no window to bound.
+    expect((await b.get('/api/staff/products').set(staffOnB)).status).toBe(401);
+  });
+
   it('a fitment change saved on one server reaches the other server’s recommendations within the cache window', async () => {
     const config = parseConfig({ ...process.env, ...shared });
     const staff = await userWithToken(config, 'staff');

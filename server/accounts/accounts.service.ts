@@ -7,7 +7,7 @@ import { getConfig, type Config } from '../config';
 import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
 import { enqueueMail } from '../mail/outbox';
-import { loadlineShop } from '../mail/shop-identity';
+import { getShopSettings } from '../shop/shop-settings.service';
 import { passwordResetMail } from '../mail/templates/password-reset-mail';
 import { PasswordResetToken } from './PasswordResetToken.entity';
 import { signToken } from './tokens';
@@ -129,11 +129,12 @@ export async function requestPasswordReset(
       expiresAt: new Date(Date.now() + resetTokenTtlMs),
       usedAt: null,
     });
+    const shop = await getShopSettings(em);
     const mail = passwordResetMail({
       displayName: user.displayName,
       resetUrl: `${config.publicOrigin}/reset-password?token=${encodeURIComponent(token)}`,
       validForMinutes: resetTokenTtlMs / 60_000,
-      shop: loadlineShop,
+      shop: { name: shop.shopName, address: shop.shopAddress },
     });
     await enqueueMail(em, `password-reset:${row.id}`, { to: user.email, ...mail });
   });

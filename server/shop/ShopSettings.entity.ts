@@ -29,6 +29,14 @@ export class ShopSettings {
   @Column({ name: 'reservation_minutes', type: 'int', nullable: true })
   reservationMinutes!: number | null;
 
+  /** Days after delivery within which a rider may ask to exchange a spring. */
+  @Column({ name: 'exchange_window_days', type: 'int', default: 30 })
+  exchangeWindowDays!: number;
+
+  /** Stock at or below this shows on the low-stock lists. */
+  @Column({ name: 'low_stock_threshold', type: 'int', default: 3 })
+  lowStockThreshold!: number;
+
   @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' })
   updatedAt!: Date;
 }

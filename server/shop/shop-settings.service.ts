@@ -14,6 +14,8 @@ export const demoShopSettings: Omit<ShopSettings, 'id' | 'updatedAt'> = {
   shippingFlatCents: 690,
   freeShippingThresholdCents: 15_000,
   reservationMinutes: null,
+  exchangeWindowDays: 30,
+  lowStockThreshold: 3,
 };
 
 // Read on every checkout and cart view; the row changes rarely, so each server keeps it for a few seconds.

@@ -5,6 +5,7 @@ import { RateLimitCounters1764892800000 } from './1764892800000-rate-limit-count
 import { MailOutbox1764979200000 } from './1764979200000-mail-outbox';
 import { Commerce1764982800000 } from './1764982800000-commerce';
 import { RiderBikes1765310000000 } from './1765310000000-rider-bikes';
+import { ShopSettingsAdmin1765350000000 } from './1765350000000-shop-settings-admin';
 
 // Listed by hand: globbed .ts migrations do not load under every runner we use.
 export const migrations = [
@@ -15,4 +16,5 @@ export const migrations = [
   MailOutbox1764979200000,
   Commerce1764982800000,
   RiderBikes1765310000000,
+  ShopSettingsAdmin1765350000000,
 ];

@@ -1,0 +1,2 @@
+export * from './shop-settings';
+export * from './dashboard';
