@@ -19,6 +19,7 @@ import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
 import { devMailRoutes } from './mail/dev-mail.routes';
 import { recommendationRoutes } from './recommendations/recommendations.routes';
+import { setupSheetRoutes } from './setup-sheet/setup-sheet.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
@@ -99,6 +100,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/cart', cartRoutes(config));
   api.use('/checkout', checkoutRoutes(config, payments));
   api.use('/orders', orderRoutes(config, payments));
+  api.use('/setup-sheet', setupSheetRoutes(config));
   // Reads the local mail stand-in; a production server has no such thing and no such route.
   if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
   api.use(notFoundApi);

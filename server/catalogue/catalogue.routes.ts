@@ -28,6 +28,9 @@ export function publicProductRoutes(): Router {
   r.get('/:id', async (req, res) => {
     res.json(await catalogue.getProduct(uuidParam(req.params.id, 'The product'), 'public'));
   });
+  r.get('/:id/bikes', async (req, res) => {
+    res.json({ items: await compatibility.bikesForSpring(uuidParam(req.params.id, 'The product')) });
+  });
   return r;
 }
 

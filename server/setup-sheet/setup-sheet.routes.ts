@@ -1,0 +1,40 @@
+import { Router, type Response } from 'express';
+import { OrderSheetQueryDto, SetupSheetQueryDto } from '../../shared/setup-sheet/setup-sheet-query.dto';
+import type { SetupSheetDto } from '../../shared/setup-sheet/setup-sheet.dto';
+import type { Config } from '../config';
+import { limiter } from '../http/rate-limit';
+import { parseQuery, uuidParam } from '../http/validate';
+import { createBikeCache } from '../recommendations/recommendations.service';
+import { setupSheetPdf } from './setup-sheet-pdf';
+import { sheetForOrder, sheetForPlan } from './setup-sheet.service';
+
+async function sendPdf(res: Response, sheet: SetupSheetDto): Promise<void> {
+  const name = `setup-sheet-${sheet.bikeLabel.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '')}.pdf`;
+  res.setHeader('Content-Type', 'application/pdf');
+  res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+  res.setHeader('Cache-Control', 'no-store');
+  res.send(await setupSheetPdf(sheet));
+}
+
+/**
+ * The setup sheet as JSON (for the page) and as a PDF, from one builder, for a plan given in the query or for an
+ * order's spring set (its owner, or the order link's token).
+ */
+export function setupSheetRoutes(config: Config): Router {
+  const r = Router();
+  const cache = createBikeCache(config.catalogueCacheTtlMs);
+  r.use(limiter({ name: 'setup-sheet', windowMs: 60_000, limit: config.calcRateLimitPerMinute }));
+  r.get('/', async (req, res) => {
+    res.json(await sheetForPlan(await parseQuery(SetupSheetQueryDto, req.query), cache));
+  });
+  r.get('/pdf', async (req, res) => {
+    await sendPdf(res, await sheetForPlan(await parseQuery(SetupSheetQueryDto, req.query), cache));
+  });
+  r.get('/orders/:id', async (req, res) => {
+    res.json(await sheetForOrder(config, req.user, uuidParam(req.params.id, 'The order'), await parseQuery(OrderSheetQueryDto, req.query)));
+  });
+  r.get('/orders/:id/pdf', async (req, res) => {
+    await sendPdf(res, await sheetForOrder(config, req.user, uuidParam(req.params.id, 'The order'), await parseQuery(OrderSheetQueryDto, req.query)));
+  });
+  return r;
+}
