@@ -68,6 +68,7 @@ describe('cart', () => {
     const byProduct = new Map(cart.lines.map((l) => [l.productId, l]));
     // Fork springs are sold as a pair: a two-leg fork takes one unit, not two pairs. One shock spring, and the adapter the 85 N/mm spring needs here.
     expect(byProduct.get(okFork.id)?.quantity).toBe(1);
+    expect([byProduct.get(okFork.id)?.perUnit, byProduct.get(shock85.id)?.perUnit, byProduct.get(adapter.id)?.perUnit]).toEqual(['per pair', 'per spring', 'each']);
     expect(byProduct.get(shock85.id)?.quantity).toBe(1);
     expect(byProduct.get(adapter.id)?.quantity).toBe(1);
     expect(byProduct.get(shock85.id)?.unitPriceCents).toBe(15_900);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { quantityWords, saleUnits, unitsToBuy } from './sale-unit';
+import { perUnitWords, quantityWords, saleUnits, unitsToBuy } from './sale-unit';
 
 describe('spring sale units', () => {
   it('a two-leg fork takes one pair, not two', () => {
@@ -16,5 +16,10 @@ describe('spring sale units', () => {
   it('price labels name the unit the price is for', () => {
     expect(saleUnits.fork.perUnit).toBe('per pair');
     expect(saleUnits.shock.perUnit).toBe('per spring');
+  });
+  it('a cart line prices a fork spring per pair, a shock spring per spring, anything else each', () => {
+    expect(perUnitWords('spring', 'fork')).toBe('per pair');
+    expect(perUnitWords('spring', 'shock')).toBe('per spring');
+    expect(perUnitWords('tool', null)).toBe('each');
   });
 });

@@ -28,3 +28,11 @@ export function quantityWords(end: SpringEnd, units: number): string {
   if (u.springsPerUnit === 1) return `${units} ${units === 1 ? 'spring' : 'springs'}`;
   return `${units} ${units === 1 ? u.unit : `${u.unit}s`} (${springs} springs)`;
 }
+
+/**
+ * What one unit's price buys, as a cart or order line says it.
+ * @example perUnitWords('spring', 'fork') // "per pair"
+ */
+export function perUnitWords(kind: string, end: SpringEnd | null): string {
+  return kind === 'spring' && end ? saleUnits[end].perUnit : 'each';
+}
