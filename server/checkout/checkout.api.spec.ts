@@ -41,7 +41,8 @@ describe('checkout and payment', () => {
     expect(res.status).toBe(201);
     const { orderId, paymentUrl, accessToken } = res.body as { orderId: string; paymentUrl: string; accessToken: string };
     expect(paymentUrl).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/pay\/cs_test_/);
-    expect(await stockOf(fork.id)).toBe(forkStock - 2);
+    // One fork set is one pair of springs: one unit of the fork product.
+    expect(await stockOf(fork.id)).toBe(forkStock - 1);
     let order = await orderOf(a, orderId, accessToken);
     expect(order).toMatchObject({ status: 'pending', paymentStatus: 'awaiting', fulfilmentStatus: 'unfulfilled', totalCents: cart.totals.totalCents, vatCents: cart.totals.vatCents });
     expect(order.lines.map((l) => [l.sku, l.unitPriceCents, l.quantity]).sort()).toEqual(cart.lines.map((l) => [l.sku, l.unitPriceCents, l.quantity]).sort());
@@ -57,7 +58,7 @@ describe('checkout and payment', () => {
     expect(order.status).toBe('confirmed');
     expect(order.milestones.paidAt).not.toBeNull();
     // The stock stays taken once paid; the bought lines leave the cart.
-    expect(await stockOf(fork.id)).toBe(forkStock - 2);
+    expect(await stockOf(fork.id)).toBe(forkStock - 1);
     expect((await guest.get('/api/cart')).body.lines).toEqual([]);
     const mails = await outbox(orderId);
     expect(mails.map((m) => m.dedupe_key)).toEqual([`order-confirmed:${orderId}`]);
