@@ -77,6 +77,9 @@ test('from the finder, the setup sheet PDF carries the same preload, turns and t
   await page.getByRole('link', { name: 'Open the setup sheet' }).click();
   await expect(page.getByRole('heading', { name: 'Setup sheet' })).toBeVisible();
   await expect(page).toHaveURL(/setup-sheet\?fitmentId=.*riderKg=95/);
+  // The sheet is on screen once the server's figures are.
+  await expect(page.getByTestId('fork-preload')).toBeVisible();
+  await expect(page.getByTestId('shock-preload')).toBeVisible();
 
   const shown: string[] = [];
   for (const id of ['fork-preload', 'fork-adjuster', 'fork-spacer', 'shock-preload', 'shock-adjuster', 'fork-static-sag', 'shock-rider-sag']) {
