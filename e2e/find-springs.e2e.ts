@@ -25,7 +25,7 @@ test('a rider picks a demo bike, enters the load and gets fork and shock springs
 
   await page.getByRole('link', { name: 'Open the setup sheet' }).click();
   await expect(page.getByRole('heading', { name: 'Setup sheet' })).toBeVisible();
-  await expect(page.getByRole('complementary', { name: 'Safety' })).toContainText('qualified suspension technician');
+  await expect(page.getByRole('complementary', { name: 'Before you start' })).toContainText('qualified technician');
   await expect(page.getByRole('region', { name: 'Fork' })).toContainText('Preload');
   await expect(page.getByRole('region', { name: 'Shock' })).toContainText('Installed length');
   await expect(page.getByRole('table', { name: 'Fastener torques' })).toContainText('ft·lbf');

@@ -23,6 +23,7 @@ import { apiDescriptionRoutes } from './openapi/openapi.routes';
 import { adminShopSettingsRoutes, shopIdentityRoutes } from './shop/shop-settings.routes';
 import { staffDashboardRoutes } from './dashboard/dashboard.routes';
 import { recommendationRoutes } from './recommendations/recommendations.routes';
+import { setupSheetRoutes } from './setup-sheet/setup-sheet.routes';
 import { authenticate } from './http/auth';
 import { publicFitmentRoutes, staffFitmentRoutes } from './fitment/fitment.routes';
 import { errorMiddleware, notFoundApi } from './http/error-middleware';
@@ -108,6 +109,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/checkout', checkoutRoutes(config, payments));
   api.use('/orders', orderRoutes(config, payments));
   api.use('/bikes', bikeRoutes(config));
+  api.use('/setup-sheet', setupSheetRoutes(config));
   // Reads the local mail stand-in; a production server has no such thing and no such route.
   if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
   api.use(apiDescriptionRoutes());

@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import type { CartDto, CartLineDto, SpringSetDto } from '../../shared/commerce/cart.dto';
-import type { ProductKind } from '../../shared/catalogue';
+import { perUnitWords, type ProductKind, type SpringEnd } from '../../shared/catalogue';
 import type { SpringVerdict } from '../../shared/engine/types';
 import { lineTotalCents } from '../../shared/money';
 import type { Config } from '../config';
@@ -27,6 +27,7 @@ export interface CartLineRow {
   sku: string;
   name: string;
   kind: ProductKind;
+  spring_end: SpringEnd | null;
   price_cents: number;
   stock_on_hand: number;
   active: boolean;
@@ -36,7 +37,7 @@ export interface CartLineRow {
 export async function cartLineRows(em: EntityManager, cartId: string): Promise<CartLineRow[]> {
   return em.query(
     `SELECT l.id, l.product_id, l.quantity, l.unit_price_cents, l.spring_set_id, l.verdict,
-            p.sku, p.name, p.kind, p.price_cents, p.stock_on_hand, p.active
+            p.sku, p.name, p.kind, p.spring_end, p.price_cents, p.stock_on_hand, p.active
        FROM cart_lines l JOIN products p ON p.id = l.product_id
       WHERE l.cart_id = $1
       ORDER BY l.spring_set_id NULLS LAST, l.created_at, p.sku`,
@@ -65,6 +66,7 @@ function toLine(r: CartLineRow, inCart: Map<string, number>): CartLineDto {
     kind: r.kind,
     quantity: r.quantity,
     unitPriceCents: r.unit_price_cents,
+    perUnit: perUnitWords(r.kind, r.spring_end),
     currentPriceCents: r.price_cents,
     lineTotalCents: lineTotalCents(r.unit_price_cents, r.quantity),
     stockOnHand: r.stock_on_hand,

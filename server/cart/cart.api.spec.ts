@@ -66,8 +66,9 @@ describe('cart', () => {
     expect(res.status).toBe(201);
     const cart = res.body as CartDto;
     const byProduct = new Map(cart.lines.map((l) => [l.productId, l]));
-    // One fork set (the catalogue sells fork springs as the fork's pair), one shock spring, and the adapter it needs here.
+    // Fork springs are sold as a pair: a two-leg fork takes one unit, not two pairs. One shock spring, and the adapter the 85 N/mm spring needs here.
     expect(byProduct.get(okFork.id)?.quantity).toBe(1);
+    expect([byProduct.get(okFork.id)?.perUnit, byProduct.get(shock85.id)?.perUnit, byProduct.get(adapter.id)?.perUnit]).toEqual(['per pair', 'per spring', 'each']);
     expect(byProduct.get(shock85.id)?.quantity).toBe(1);
     expect(byProduct.get(adapter.id)?.quantity).toBe(1);
     expect(byProduct.get(shock85.id)?.unitPriceCents).toBe(15_900);
@@ -75,6 +76,7 @@ describe('cart', () => {
     const set = cart.sets[0]!;
     expect(set.bikeLabel).toContain(fitment.model);
     expect(set.loads.map((l) => l.station)).toEqual(['rider']);
+    expect(set.setup.find((s) => s.end === 'fork')?.springCount).toBe(2);
     const shockSetup = set.setup.find((s) => s.end === 'shock')!;
     // The figures are the engine's for this load, exactly as the recommendation gave them.
     expect(set.setup.find((s) => s.end === 'fork')!.springCount).toBe(2);

@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import { isCasesRecommendation, type RecommendationDto, type RecommendedSpringDto } from '../../shared/catalogue';
+import { isCasesRecommendation, unitsToBuy, type RecommendationDto, type RecommendedSpringDto } from '../../shared/catalogue';
 import type { AddSpringSetDto, CartDto, SpringSetupDto } from '../../shared/commerce/cart.dto';
 import { DEFAULT_SAG_TOLERANCE_MM } from '../../shared/engine';
 import type { SpringVerdict } from '../../shared/engine/types';
@@ -62,7 +62,7 @@ export async function addSpringSet(em: EntityManager, config: Config, cache: Bik
       problems[pick.field] = `For this load the engine calls ${c.spring.name} ${verdictWords[c.verdict]}. Choose another, or confirm you want it anyway.`;
       continue;
     }
-    const springCount = pick.end === 'fork' ? fitment.forkSpringCount : 1;
+    const springCount = pick.end === 'fork' ? fitment.forkSpringCount : fitment.shockCount;
     const targets = r.targets[pick.end];
     setup.push({
       end: pick.end,
@@ -80,8 +80,8 @@ export async function addSpringSet(em: EntityManager, config: Config, cache: Bik
       toleranceMm: (targets as { staticSagToleranceMm?: number }).staticSagToleranceMm ?? DEFAULT_SAG_TOLERANCE_MM,
       verdict: c.verdict,
     });
-    // A fork spring product is the fork's set (the catalogue sells them as a pair), so one per fork; one shock spring per shock.
-    needs.push({ productId: c.spring.id, quantity: 1, verdict: c.verdict });
+    // Fork springs are sold as a pair, shock springs one by one: a two-leg fork takes one unit, twin shocks two.
+    needs.push({ productId: c.spring.id, quantity: unitsToBuy(pick.end, springCount), verdict: c.verdict });
     for (const a of c.spring.adapters) needs.push({ productId: a.id, quantity: a.quantity, verdict: null });
   }
   if (Object.keys(problems).length) {

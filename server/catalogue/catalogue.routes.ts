@@ -28,6 +28,9 @@ export function publicProductRoutes(): Router {
   r.get('/:id', endpoint({ summary: 'One product as riders see it', ids: { id: 'The product' } }, async ({ ids }, _req, res) => {
     res.json(await catalogue.getProduct(ids.id, 'public'));
   }));
+  r.get('/:id/bikes', endpoint({ summary: 'The bikes a spring fits, with the adapters each needs', ids: { id: 'The product' } }, async ({ ids }, _req, res) => {
+    res.json({ items: await compatibility.bikesForSpring(ids.id) });
+  }));
   return r;
 }
 

@@ -6,6 +6,7 @@ import {
   type CompatibilityOverrideDto,
   type FitmentCompatibilityDto,
   type SpringEnd,
+  type SpringBikeFitDto,
   type SpringFitDto,
 } from '../../shared/catalogue';
 import { recordAudit } from '../audit/audit.service';
@@ -216,5 +217,42 @@ export async function fittingSprings(fitmentId: string, em: EntityManager = AppD
     priceCents: r.price_cents,
     inStock: r.stock_on_hand > 0,
     adapters: adapters.get(r.id) ?? [],
+  }));
+}
+
+/** The bikes an active spring fits (window or staff override), each with the adapters it needs there: for the product page. */
+export async function bikesForSpring(productId: string, em: EntityManager = AppDataSource.manager): Promise<SpringBikeFitDto[]> {
+  const p = await em.getRepository(Product).findOneBy({ id: productId });
+  if (!p || !p.active) throw AppError.notFound('The product');
+  if (p.kind !== 'spring') return [];
+  const rows: { id: string; make: string; model: string; variant: string; year_from: number; year_to: number | null }[] = await em.query(
+    `SELECT f.id, b.make, b.model, f.variant, f.year_from, f.year_to
+       FROM fitments f JOIN bikes b ON b.id = f.bike_id
+       JOIN products p ON p.id = $1
+       LEFT JOIN spring_fit_overrides o ON o.fitment_id = f.id AND o.product_id = p.id
+      WHERE ${fitsSql('p', 'f', 'o')}
+      ORDER BY b.make, b.model, f.variant, f.year_from
+      LIMIT 200`,
+    [productId],
+  );
+  const needs: { fitment_id: string; id: string; sku: string; name: string; price_cents: number; quantity: number; stock_on_hand: number }[] = rows.length
+    ? await em.query(
+        `SELECT n.fitment_id, a.id, a.sku, a.name, a.price_cents, n.quantity, a.stock_on_hand
+           FROM adapter_needs n JOIN products a ON a.id = n.adapter_id
+          WHERE n.spring_id = $1 AND n.fitment_id = ANY($2::uuid[])
+          ORDER BY a.sku`,
+        [productId, rows.map((r) => r.id)],
+      )
+    : [];
+  return rows.map((r) => ({
+    fitmentId: r.id,
+    make: r.make,
+    model: r.model,
+    variant: r.variant,
+    yearFrom: r.year_from,
+    yearTo: r.year_to,
+    adapters: needs
+      .filter((n) => n.fitment_id === r.id)
+      .map((n) => ({ id: n.id, sku: n.sku, name: n.name, priceCents: n.price_cents, currency: 'EUR' as const, quantity: n.quantity, inStock: n.stock_on_hand >= n.quantity })),
   }));
 }

@@ -41,6 +41,7 @@ describe('checkout and payment', () => {
     expect(res.status).toBe(201);
     const { orderId, paymentUrl, accessToken } = res.body as { orderId: string; paymentUrl: string; accessToken: string };
     expect(paymentUrl).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/pay\/cs_test_/);
+    // One fork set is one pair of springs: one unit of the fork product.
     expect(await stockOf(fork.id)).toBe(forkStock - 1);
     let order = await orderOf(a, orderId, accessToken);
     expect(order).toMatchObject({ status: 'pending', paymentStatus: 'awaiting', fulfilmentStatus: 'unfulfilled', totalCents: cart.totals.totalCents, vatCents: cart.totals.vatCents });

@@ -91,6 +91,12 @@ const matrix: Record<string, Access> = {
   'POST /api/bikes/:id/sag-checks': 'signed-in',
   'DELETE /api/bikes/:id/sag-checks/:checkId': 'signed-in',
   'GET /api/bikes/:id/orders': 'signed-in',
+  'GET /api/products/:id/bikes': 'public',
+  'GET /api/setup-sheet': 'public',
+  'GET /api/setup-sheet/pdf': 'public',
+  // An order's sheet: its owner, or the holder of the order's link (else a 404).
+  'GET /api/setup-sheet/orders/:id': 'public',
+  'GET /api/setup-sheet/orders/:id/pdf': 'public',
   'GET /api/openapi.json': 'public',
   'GET /api/docs': 'public',
   'GET /files/product-images/:name': 'public',

@@ -70,3 +70,14 @@ export class AdapterNeedsDto {
   @Type(() => AdapterNeedInputDto)
   adapters!: AdapterNeedInputDto[];
 }
+
+/** A bike a spring fits, with the adapters it needs there (GET /api/products/:id/bikes). */
+export interface SpringBikeFitDto {
+  fitmentId: string;
+  make: string;
+  model: string;
+  variant: string;
+  yearFrom: number;
+  yearTo: number | null;
+  adapters: AdapterNeedDto[];
+}

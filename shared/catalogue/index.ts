@@ -6,3 +6,4 @@ export * from './recommendation.dto';
 export * from './audit.dto';
 export * from './csv.dto';
 export * from './ranges';
+export * from './sale-unit';

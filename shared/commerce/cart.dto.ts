@@ -85,6 +85,8 @@ export interface CartLineDto {
   quantity: number;
   /** The price copied when the line was added: what checkout charges unless it changed since. */
   unitPriceCents: number;
+  /** What one unit's price buys: "per pair" (fork springs), "per spring" (shock springs) or "each". */
+  perUnit: string;
   /** The catalogue's price now; differs from unitPriceCents when it changed since the line was added. */
   currentPriceCents: number;
   lineTotalCents: number;

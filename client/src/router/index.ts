@@ -7,6 +7,8 @@ import { useSessionStore } from '../stores/session';
 export const routeNames = [
   'home',
   'find-springs',
+  'products',
+  'product',
   'setup-sheet',
   'sag-check',
   'cart',
@@ -62,6 +64,8 @@ type NamedRoute = RouteRecordRaw & { name: RouteName };
 const children: (NamedRoute | (RouteRecordRaw & { children: NamedRoute[] }))[] = [
   { path: '', name: 'home', component: HomePage, meta: { title: 'Springs for the way you ride' } },
   { path: 'find', name: 'find-springs', component: () => import('../pages/shop/FindSpringsPage.vue'), meta: { title: 'Find your springs' } },
+  { path: 'parts', name: 'products', component: () => import('../pages/shop/ProductsPage.vue'), meta: { title: 'Springs & parts' } },
+  { path: 'parts/:id', name: 'product', component: () => import('../pages/shop/ProductPage.vue'), props: true, meta: { title: 'Product' } },
   { path: 'setup-sheet', name: 'setup-sheet', component: () => import('../pages/shop/SetupSheetPage.vue'), meta: { title: 'Setup sheet' } },
   { path: 'sag-check', name: 'sag-check', component: () => import('../pages/shop/SagCheckPage.vue'), meta: { title: 'Check your sag' } },
   { path: 'cart', name: 'cart', component: () => import('../pages/shop/CartPage.vue'), meta: { title: 'Your cart' } },
