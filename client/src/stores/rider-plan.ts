@@ -4,7 +4,8 @@ import { luggageStations, type LuggageStation, type RidingStyle } from '@shared/
 import type { FitmentDto } from '@shared/catalogue/fitment.dto';
 import type { RecommendationDto } from '@shared/catalogue/recommendation.dto';
 import { riderRanges } from '@shared/catalogue/ranges';
-import { recommendFor, RecommendationProblem, type BikeForRecommendationDto } from '@shared/recommend/recommend';
+import type { EngineInputs } from '@shared/recommend/engine-input';
+import { recommendationInput, recommendFor, RecommendationProblem, type BikeForRecommendationDto } from '@shared/recommend/recommend';
 import { shopApi, type RecommendationRequest } from '../api/shop';
 
 export type { LuggageStation };
@@ -155,6 +156,16 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
   const live = computed<LiveAnswer>(() => answerFor(false));
   /** The same with the rider's load cases: which springs cover all of them, and which case rules each other out. */
   const liveCases = computed<LiveAnswer>(() => (plan.value.cases.length ? answerFor(true) : {}));
+  /** The engine input behind `live` (loads placed, targets, springs): the sag chart sweeps it. */
+  const liveInputs = computed<EngineInputs | null>(() => {
+    const body = requestBody();
+    if (!live.value.result || !bike.value || !body) return null;
+    try {
+      return recommendationInput(bike.value, { ...body, rider: { ...body.rider, massKg: body.rider.massKg! } }).inputs;
+    } catch {
+      return null;
+    }
+  });
   watch(live, (a) => {
     if (a.result) setResult(a.result);
   });
@@ -196,6 +207,7 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
     result,
     live,
     liveCases,
+    liveInputs,
     chosenFork,
     chosenShock,
     sentLuggage,
