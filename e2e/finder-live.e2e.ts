@@ -58,7 +58,7 @@ test('the finder answers as the rider types, in kg or lb, with a sag chart per e
   // and names the load that rules each spring out.
   const shockAcross = page.getByRole('region', { name: 'Shock spring across your loads' });
   await expect(shockAcross.getByRole('list', { name: 'Shock spring ruled out' })).toContainText('is ruled out by');
-  await page.screenshot({ path: `${shots}/finder-cases-1440.png`, fullPage: true });
+  await page.getByRole('region', { name: 'Other loads you ride with' }).screenshot({ path: `${shots}/finder-cases-1440.png` });
 });
 
 test('a sag check that reads too soft names the stiffer springs that suit the load, and one goes to the cart', async ({ page }) => {
@@ -106,5 +106,13 @@ test('at phone width the finder fits the screen: candidates are cards and the fo
   await expect(page.getByTestId('fork-covers-all')).toBeVisible();
   await expect(page.getByRole('figure', { name: /shock spring/ })).toBeVisible();
   expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  // Only the springs that suit show until the rider asks for the rest.
+  const shockRows = finder.candidates('Shock spring').getByRole('row');
+  const suitedCount = await shockRows.count();
+  await page.getByRole('button', { name: /Show the \d+ that do not suit/ }).last().click();
+  await expect.poll(() => shockRows.count()).toBeGreaterThan(suitedCount);
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await page.getByRole('button', { name: 'Show only the springs that suit' }).click();
   await page.screenshot({ path: `${shots}/finder-390.png`, fullPage: true });
+  await finder.candidates('Shock spring').screenshot({ path: `${shots}/finder-cards-390.png` });
 });
