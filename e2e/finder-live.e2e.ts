@@ -115,4 +115,9 @@ test('at phone width the finder fits the screen: candidates are cards and the fo
   await page.getByRole('button', { name: 'Show only the springs that suit' }).click();
   await page.screenshot({ path: `${shots}/finder-390.png`, fullPage: true });
   await finder.candidates('Shock spring').screenshot({ path: `${shots}/finder-cards-390.png` });
+  // What a phone shows at once: the results' first screen and the chart.
+  await page.getByRole('heading', { name: 'Fork springs', level: 2 }).scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `${shots}/finder-390x844-results.png` });
+  await page.getByRole('figure', { name: /shock spring/ }).scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `${shots}/finder-390x844-chart.png` });
 });
