@@ -70,3 +70,6 @@ export type AuditEntityType = (typeof auditEntityTypes)[number];
 
 /** How far a predicted static sag may sit from its target when a fitment names no tolerance, mm: the engine's default. */
 export { DEFAULT_STATIC_SAG_TOLERANCE_MM as defaultStaticSagToleranceMm } from '../engine/verdict';
+
+/** The name the rider's own load takes among load cases. */
+export const asEnteredCaseName = 'as entered';

@@ -94,7 +94,6 @@ export class RecommendationRequestDto extends LoadSetInputDto {
   cases?: LoadCaseInputDto[];
 }
 
-export const asEnteredCaseName = 'as entered';
 
 // ---------- response (the engine's fork-spring / rear-spring shapes, enriched) ----------
 

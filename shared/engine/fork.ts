@@ -43,7 +43,7 @@ export function forkSpringDeflection(forkAngleDeg: number, springCount: number, 
  * Fork sag with preload p: cos θ·F/(n·k) − p, kept between 0 (topped out) and full travel, mm.
  * @example forkSag(model, 10, 1000, 5) // 45 for a vertical twin-spring fork
  */
-export function forkSag(model: ForkModel, rateNPerMm: number, wheelForceN: number, preloadMm: number): number {
+export function forkSag(model: Pick<ForkModel, 'cosAngle' | 'springCount' | 'forkTravelMm'>, rateNPerMm: number, wheelForceN: number, preloadMm: number): number {
   const x = (model.cosAngle * wheelForceN) / (model.springCount * rateNPerMm) - preloadMm;
   return Math.min(model.forkTravelMm, Math.max(0, x));
 }

@@ -5,6 +5,7 @@ import type { ProductDto } from '@shared/catalogue/product.dto';
 import type { SpringBikeFitDto } from '@shared/catalogue/compatibility.dto';
 import type { SetupSheetDto } from '@shared/setup-sheet/setup-sheet.dto';
 import type { LuggageStation, RidingStyle } from '@shared/catalogue/constants';
+import type { BikeForRecommendationDto } from '@shared/recommend/recommend';
 import { api } from './client';
 
 export interface RecommendationRequest {
@@ -22,6 +23,8 @@ export const shopApi = {
   fitments: (make: string, model: string) =>
     api.get<Page<FitmentSummaryDto>>(`/fitments?${new URLSearchParams({ make, model, pageSize: '100', sort: 'yearFrom' })}`),
   fitment: (id: string) => api.get<FitmentDto>(`/fitments/${encodeURIComponent(id)}`),
+  /** The bike's fitment and fitting springs with adapters: the finder runs the shared rule on them in the browser. */
+  bike: (fitmentId: string) => api.get<BikeForRecommendationDto>(`/recommendations/bikes/${encodeURIComponent(fitmentId)}`),
   recommend: (body: RecommendationRequest) => api.post<RecommendationDto>('/recommendations', body),
 };
 

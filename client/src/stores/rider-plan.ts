@@ -3,10 +3,29 @@ import { computed, ref, watch } from 'vue';
 import { luggageStations, type LuggageStation, type RidingStyle } from '@shared/catalogue/constants';
 import type { FitmentDto } from '@shared/catalogue/fitment.dto';
 import type { RecommendationDto } from '@shared/catalogue/recommendation.dto';
+import { riderRanges } from '@shared/catalogue/ranges';
+import type { EngineInputs } from '@shared/recommend/engine-input';
+import { recommendationInput, recommendFor, RecommendationProblem, type BikeForRecommendationDto } from '@shared/recommend/recommend';
 import { shopApi, type RecommendationRequest } from '../api/shop';
 
 export type { LuggageStation };
 const key = 'loadline.plan';
+
+/** A named load the rider wants the springs to carry too (solo, loaded touring, two-up…). */
+export interface PlanLoadCase {
+  name: string;
+  riderKg: number | null;
+  gearKg: number | null;
+  passengerKg: number | null;
+  luggageKg: Partial<Record<LuggageStation, number | null>>;
+}
+
+/** The finder worked out in the browser: the answer, or why there is none yet (per field, like the API's). */
+export interface LiveAnswer {
+  result?: RecommendationDto;
+  problem?: string;
+  fields?: Record<string, string>;
+}
 
 interface SavedPlan {
   fitmentId: string | null;
@@ -17,6 +36,7 @@ interface SavedPlan {
   luggageKg: Partial<Record<LuggageStation, number | null>>;
   chosenForkId: string | null;
   chosenShockId: string | null;
+  cases: PlanLoadCase[];
 }
 
 const blank = (): SavedPlan => ({
@@ -28,6 +48,7 @@ const blank = (): SavedPlan => ({
   luggageKg: {},
   chosenForkId: null,
   chosenShockId: null,
+  cases: [],
 });
 
 function load(): SavedPlan {
@@ -43,6 +64,8 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
   const plan = ref<SavedPlan>(load());
   const fitment = ref<FitmentDto | null>(null);
   const result = ref<RecommendationDto | null>(null);
+  /** The bike's fitment and fitting springs, fetched once per bike; the shared rule runs on it as the rider types. */
+  const bike = ref<BikeForRecommendationDto | null>(null);
   watch(plan, (p) => localStorage.setItem(key, JSON.stringify(p)), { deep: true });
 
   const chosenFork = computed(() => {
@@ -75,6 +98,22 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
   );
   const hasPassengerSeat = computed(() => fitment.value?.loadStations.some((s) => s.station === 'passenger') ?? false);
 
+  const luggageOf = (kg: Partial<Record<LuggageStation, number | null>>) =>
+    luggageStations.flatMap((station) => {
+      const m = kg[station];
+      return m && fitment.value?.loadStations.some((s) => s.station === station) ? [{ station, massKg: m }] : [];
+    });
+
+  /** The load cases as the API takes them; a case's empty rider falls back to the rider entered above. */
+  const sentCases = computed(() =>
+    plan.value.cases.map((c) => ({
+      name: c.name,
+      rider: { massKg: c.riderKg ?? plan.value.riderKg, gearKg: c.gearKg ?? plan.value.gearKg ?? 0 },
+      luggage: luggageOf(c.luggageKg),
+      ...(hasPassengerSeat.value && c.passengerKg ? { passengerKg: c.passengerKg } : {}),
+    })),
+  );
+
   function requestBody(): RecommendationRequest | null {
     if (!fitment.value) return null;
     return {
@@ -86,10 +125,62 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
     };
   }
 
+  /** The rider's own checks before the rule runs: the same ranges the API's fields hold. */
+  function riderProblems(prefix: string, rider: { massKg: number | null; gearKg: number }): Record<string, string> {
+    const out: Record<string, string> = {};
+    const m = riderRanges.massKg;
+    if (rider.massKg === null || !Number.isFinite(rider.massKg)) out[`${prefix}rider.massKg`] = 'Enter the rider’s weight.';
+    else if (rider.massKg < m.min || rider.massKg > m.max) out[`${prefix}rider.massKg`] = `A rider weighs between ${m.min} and ${m.max} kg here.`;
+    const gr = riderRanges.gearKg;
+    if (!(rider.gearKg >= gr.min && rider.gearKg <= gr.max)) out[`${prefix}rider.gearKg`] = `Riding gear is between ${gr.min} and ${gr.max} kg.`;
+    return out;
+  }
+
+  function answerFor(withCases: boolean): LiveAnswer {
+    const body = requestBody();
+    if (!bike.value || !body || bike.value.fitment.id !== body.fitmentId) return {};
+    const cases = withCases ? sentCases.value : undefined;
+    const fields = { ...riderProblems('', body.rider), ...Object.assign({}, ...(cases ?? []).map((c, i) => riderProblems(`cases.${i}.`, c.rider))) };
+    if (Object.keys(fields).length) return { fields };
+    try {
+      // The checks above leave no empty rider mass.
+      const sendable = cases?.map((c) => ({ ...c, rider: { ...c.rider, massKg: c.rider.massKg! } }));
+      return { result: recommendFor(bike.value, { ...body, rider: { ...body.rider, massKg: body.rider.massKg! }, ...(sendable ? { cases: sendable } : {}) }) };
+    } catch (e) {
+      if (e instanceof RecommendationProblem) return { problem: e.message, fields: e.fields };
+      return { problem: e instanceof Error ? e.message : 'This load cannot be worked out.' };
+    }
+  }
+
+  /** The finder's answer for the load entered, worked out in the browser by the server's own rule on every change. */
+  const live = computed<LiveAnswer>(() => answerFor(false));
+  /** The same with the rider's load cases: which springs cover all of them, and which case rules each other out. */
+  const liveCases = computed<LiveAnswer>(() => (plan.value.cases.length ? answerFor(true) : {}));
+  /** The engine input behind `live` (loads placed, targets, springs): the sag chart sweeps it. */
+  const liveInputs = computed<EngineInputs | null>(() => {
+    const body = requestBody();
+    if (!live.value.result || !bike.value || !body) return null;
+    try {
+      return recommendationInput(bike.value, { ...body, rider: { ...body.rider, massKg: body.rider.massKg! } }).inputs;
+    } catch {
+      return null;
+    }
+  });
+  watch(live, (a) => {
+    if (a.result) setResult(a.result);
+  });
+
+  async function loadBike(id: string): Promise<void> {
+    if (bike.value?.fitment.id === id) return;
+    const b = await shopApi.bike(id);
+    if (plan.value.fitmentId === id) bike.value = b;
+  }
+
   /** Brings back the bike and the result after a reload, from the plan kept in the browser. */
   async function restore(): Promise<void> {
     if (!plan.value.fitmentId) return;
     if (fitment.value?.id !== plan.value.fitmentId) fitment.value = await shopApi.fitment(plan.value.fitmentId);
+    await loadBike(plan.value.fitmentId);
     const body = requestBody();
     if (!result.value && body && body.rider.massKg !== null) setResult(await shopApi.recommend(body));
   }
@@ -102,7 +193,29 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
     }
     fitment.value = f;
     plan.value.fitmentId = f?.id ?? null;
+    if (!f) bike.value = null;
+    else if (bike.value?.fitment.id !== f.id) {
+      bike.value = null;
+      loadBike(f.id).catch(() => undefined);
+    }
   }
 
-  return { plan, fitment, result, chosenFork, chosenShock, sentLuggage, hasPassengerSeat, requestBody, restore, setResult, chooseBike };
+  return {
+    plan,
+    fitment,
+    bike,
+    result,
+    live,
+    liveCases,
+    liveInputs,
+    chosenFork,
+    chosenShock,
+    sentLuggage,
+    sentCases,
+    hasPassengerSeat,
+    requestBody,
+    restore,
+    setResult,
+    chooseBike,
+  };
 });
