@@ -13,6 +13,7 @@ import { getConfig, type Config } from './config';
 import { cartRoutes } from './cart/cart.routes';
 import { checkoutRoutes } from './checkout/checkout.routes';
 import { orderRoutes, staffOrderRoutes } from './orders/orders.routes';
+import { exchangeRoutes, staffExchangeRoutes, warehouseExchangeRoutes } from './exchanges/exchanges.routes';
 import { paymentWebhookRoutes } from './payments/payments.routes';
 import { paymentProviderFor } from './payments/stripe-provider';
 import { calculationRoutes } from './calculations/calculations.routes';
@@ -99,6 +100,9 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/cart', cartRoutes(config));
   api.use('/checkout', checkoutRoutes(config, payments));
   api.use('/orders', orderRoutes(config, payments));
+  api.use('/exchanges', exchangeRoutes(config));
+  api.use('/staff/exchanges', staffExchangeRoutes(config, payments));
+  api.use('/warehouse/exchanges', warehouseExchangeRoutes(config, payments));
   // Reads the local mail stand-in; a production server has no such thing and no such route.
   if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
   api.use(notFoundApi);
