@@ -9,7 +9,7 @@ import { recommend, type BikeCache } from '../recommendations/recommendations.se
 
 export interface EngineOptions {
   end: 'fork' | 'shock';
-  targets: { staticSagMm: number; riderSagMm: number };
+  targets: { staticSagMm: number; riderSagMm: number; staticSagToleranceMm: number };
   options: ExchangeReplacementDto[];
 }
 
@@ -29,11 +29,11 @@ export async function engineOptions(em: EntityManager, cache: BikeCache, line: O
     const judged = chosen(r, end, c.id);
     if (!judged) return [];
     const s = judged.spring;
-    return [{ productId: s.id, name: s.name, sku: s.sku, rateNPerMm: s.rateNPerMm, priceCents: s.priceCents, inStock: s.inStock, verdict: judged.verdict, reason: s.reason, staticSagMm: s.staticSagMm, riderSagMm: s.riderSagMm, preloadMm: s.preloadMm }];
+    return [{ productId: s.id, name: s.name, sku: s.sku, rateNPerMm: s.rateNPerMm, priceCents: s.priceCents, inStock: s.inStock, verdict: judged.verdict, reason: s.reason, staticSagMm: s.staticSagMm, riderSagMm: s.riderSagMm, preloadMm: s.preloadMm, preloadNeededMm: s.preloadNeededMm, preloadRangeMm: s.preloadRangeMm, ...(s.coilBindMarginMm === undefined ? {} : { coilBindMarginMm: s.coilBindMarginMm }) }];
   });
   // Stable: the engine's ranking stands within ok and within the rest.
   options.sort((a, b) => (a.verdict === 'ok' ? 0 : 1) - (b.verdict === 'ok' ? 0 : 1));
-  return { end, targets: { staticSagMm: r.targets[end].staticSagMm, riderSagMm: r.targets[end].riderSagMm }, options };
+  return { end, targets: { staticSagMm: r.targets[end].staticSagMm, riderSagMm: r.targets[end].riderSagMm, staticSagToleranceMm: r.targets[end].staticSagToleranceMm }, options };
 }
 
 /**

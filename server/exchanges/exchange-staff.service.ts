@@ -111,7 +111,7 @@ export async function shipReplacement(config: Config, actorId: string, id: strin
     e.carrier = dto.carrier.trim();
     e.trackingNumber = dto.trackingNumber.trim();
     await moveExchange(em, e, 'shipped');
-    await moveExchangeStock(em, { productId: e.replacementProductId!, quantity: -e.quantity, reason: 'exchange', orderId: e.orderId, exchangeId: e.id, note: `${e.number} replacement shipped`, actorId });
+    await moveExchangeStock(em, { productId: e.replacementProductId!, quantity: -e.quantity, reason: 'sale', orderId: e.orderId, exchangeId: e.id, note: `${e.number} replacement shipped`, actorId });
     await mailExchangeStep(em, config, e, 'shipped');
     return toExchangeDto(em, e);
   });

@@ -1,8 +1,8 @@
 import type { EntityManager } from 'typeorm';
 import { AppError } from '../errors';
 
-/** The ledger's reasons this part writes: a spring back on the shelf, a replacement off it. */
-export type ExchangeStockReason = 'return' | 'exchange';
+/** The ledger's reasons this part writes: a spring back on the shelf (return), a replacement off it (sale). */
+export type ExchangeStockReason = 'return' | 'sale';
 
 export interface ExchangeStockMovement {
   productId: string;

@@ -18,6 +18,9 @@ export interface ExchangeReplacementDto {
   staticSagMm: number;
   riderSagMm: number;
   preloadMm: number;
+  preloadNeededMm: number;
+  preloadRangeMm: { min: number; max: number };
+  coilBindMarginMm?: number;
 }
 
 /** A sag check attached to a request: the readings as sent and the verdict the server worked out from them. */
@@ -34,7 +37,7 @@ export interface ExchangeProposalDto {
   /** Null for a line that is not a spring: it can be returned, not exchanged. */
   end: 'fork' | 'shock' | null;
   bought: { productId: string | null; name: string; sku: string; rateNPerMm: number | null; quantity: number; unitPriceCents: number };
-  targets: { staticSagMm: number; riderSagMm: number } | null;
+  targets: { staticSagMm: number; riderSagMm: number; staticSagToleranceMm: number } | null;
   currency: CurrencyCode;
   /** The best-ranked rate the engine calls ok for the saved load, other than the one bought; null when there is none. */
   proposed: ExchangeReplacementDto | null;
