@@ -53,6 +53,9 @@ export default defineConfig({
       SMTP_PORT: mailSmtpPort,
       SMTP_SECURE: 'false',
       MAIL_CAPTURE_URL: `http://127.0.0.1:${mailHttpPort}`,
+      // The tests' payment stand-in (scripts/test.sh starts it and points its events at this server).
+      STRIPE_API_PORT: process.env.STRIPE_API_PORT ?? '8471',
+      RESERVATION_SWEEP_MS: '5000',
       MAIL_RETRY_DELAY_SECONDS: '1',
     },
   },

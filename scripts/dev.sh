@@ -9,6 +9,9 @@ export MAIL_STANDIN_SMTP_PORT=${MAIL_STANDIN_SMTP_PORT:-2525}
 export MAIL_STANDIN_HTTP_PORT=${MAIL_STANDIN_HTTP_PORT:-2526}
 export SMTP_PORT=${SMTP_PORT:-$MAIL_STANDIN_SMTP_PORT}
 export MAIL_CAPTURE_URL=${MAIL_CAPTURE_URL:-http://127.0.0.1:$MAIL_STANDIN_HTTP_PORT}
+# Same payment stand-in port as npm start; its events go to the API process.
+export STRIPE_API_PORT=${STRIPE_API_PORT:-8470}
+export PAYMENTS_WEBHOOK_URL=${PAYMENTS_WEBHOOK_URL:-http://127.0.0.1:$PORT/api/payments/webhook}
 ensure_node_modules
 bash docker-free-db/db.sh start
 bash docker-free-db/db.sh ensure-db "${DATABASE_URL##*/}" >/dev/null

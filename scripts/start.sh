@@ -6,6 +6,9 @@ export LOADLINE_DB_PORT=${LOADLINE_DB_PORT:-54329}
 export LOADLINE_DB_CLUSTER=${LOADLINE_DB_CLUSTER:-demo}
 export DATABASE_URL=${DATABASE_URL:-postgres://postgres@127.0.0.1:$LOADLINE_DB_PORT/loadline}
 export PORT=${PORT:-8080}
+# The payment stand-in (standins/payments) answers the stripe SDK here and sends its events to the app's webhook.
+export STRIPE_API_PORT=${STRIPE_API_PORT:-8470}
+export PAYMENTS_WEBHOOK_URL=${PAYMENTS_WEBHOOK_URL:-http://127.0.0.1:$PORT/api/payments/webhook}
 # The mail stand-in's ports, and the app pointed at them.
 export MAIL_STANDIN_SMTP_PORT=${MAIL_STANDIN_SMTP_PORT:-2525}
 export MAIL_STANDIN_HTTP_PORT=${MAIL_STANDIN_HTTP_PORT:-2526}

@@ -8,6 +8,10 @@ export LOADLINE_DB_FAST=1
 export TEST_DATABASE_URL="postgres://postgres@127.0.0.1:$LOADLINE_DB_PORT/loadline_test"
 export E2E_DATABASE_URL="postgres://postgres@127.0.0.1:$LOADLINE_DB_PORT/loadline_e2e"
 export E2E_PORT=${E2E_PORT:-8090}
+# The tests' own payment stand-in, apart from npm start's; the end-to-end server takes its events.
+export STRIPE_API_PORT=${TEST_STRIPE_API_PORT:-8471}
+export PAYMENTS_WEBHOOK_URL="http://127.0.0.1:$E2E_PORT/api/payments/webhook"
+export PAYMENTS_RETRY_BASE_MS=${PAYMENTS_RETRY_BASE_MS:-200}
 # The tests' mail stand-in, on ports of its own so it can run beside npm start's.
 export MAIL_STANDIN_SMTP_PORT=${MAIL_STANDIN_SMTP_PORT:-2535}
 export MAIL_STANDIN_HTTP_PORT=${MAIL_STANDIN_HTTP_PORT:-2536}
@@ -21,6 +25,8 @@ if ! bash docker-free-db/db.sh status >/dev/null 2>&1; then
   started_db=1
 fi
 export LOADLINE_RUN_DIR="$PWD/.run/test"
+# Each run starts the stand-ins from empty state.
+rm -f "$LOADLINE_RUN_DIR"/standins/*-state-*.json
 trap 'bash scripts/standins.sh stop || true; if [ "$started_db" = 1 ]; then bash docker-free-db/db.sh stop >/dev/null || true; fi' EXIT
 bash scripts/standins.sh start
 

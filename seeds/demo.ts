@@ -10,6 +10,8 @@ import { applyProductInput } from '../server/catalogue/catalogue.service';
 import { Product } from '../server/catalogue/Product.entity';
 import { Fitment } from '../server/fitment/Fitment.entity';
 import { applyFitmentInput, findOrCreateBike } from '../server/fitment/fitment.service';
+import { ShopSettings } from '../server/shop/ShopSettings.entity';
+import { demoShopSettings } from '../server/shop/shop-settings.service';
 import type { Role } from '../shared/roles';
 import accounts from './data/accounts.json' with { type: 'json' };
 import fitments from './data/fitments.json' with { type: 'json' };
@@ -32,6 +34,12 @@ function valid<T extends object>(cls: new () => T, plain: unknown, what: string,
 export async function seedDemo(em: EntityManager): Promise<void> {
   await seedAccounts(em);
   await seedCatalogue(em);
+  await seedShopSettings(em);
+}
+
+/** The demo shop's name, address, VAT, shipping and reservation figures (invented). */
+export async function seedShopSettings(em: EntityManager): Promise<void> {
+  await em.getRepository(ShopSettings).upsert({ id: 1, ...demoShopSettings }, ['id']);
 }
 
 /** The four demo sign-ins, one per role. */

@@ -2,7 +2,8 @@ import { AppDataSource } from '../server/db/data-source';
 import { User } from '../server/accounts/User.entity';
 import { Fitment } from '../server/fitment/Fitment.entity';
 import { Product } from '../server/catalogue/Product.entity';
-import { seedAccounts, seedCatalogue } from './demo';
+import { seedAccounts, seedCatalogue, seedShopSettings } from './demo';
+import { ShopSettings } from '../server/shop/ShopSettings.entity';
 
 // --if-empty seeds only the parts that are empty, so npm start never overwrites what someone changed in the demo,
 // yet a demo database from before the catalogue existed still gets one.
@@ -18,6 +19,10 @@ try {
     if (!ifEmpty || ((await em.getRepository(Fitment).count()) === 0 && (await em.getRepository(Product).count()) === 0)) {
       await seedCatalogue(em);
       seeded.push('catalogue');
+    }
+    if (!ifEmpty || (await em.getRepository(ShopSettings).count()) === 0) {
+      await seedShopSettings(em);
+      seeded.push('shop settings');
     }
     console.log(seeded.length ? `loadline: demo ${seeded.join(' and ')} seeded` : 'loadline: demo data already present, not seeding');
   });

@@ -10,6 +10,11 @@ import { adminUserRoutes, authRoutes } from './accounts/accounts.routes';
 import { auditRoutes } from './audit/audit.routes';
 import { productImageFiles, publicProductRoutes, staffCatalogueRoutes, staffProductRoutes } from './catalogue/catalogue.routes';
 import { getConfig, type Config } from './config';
+import { cartRoutes } from './cart/cart.routes';
+import { checkoutRoutes } from './checkout/checkout.routes';
+import { orderRoutes, staffOrderRoutes } from './orders/orders.routes';
+import { paymentWebhookRoutes } from './payments/payments.routes';
+import { paymentProviderFor } from './payments/stripe-provider';
 import { calculationRoutes } from './calculations/calculations.routes';
 import { healthRoutes } from './health/health.routes';
 import { devMailRoutes } from './mail/dev-mail.routes';
@@ -69,6 +74,9 @@ export function createApp(config: Config = getConfig()): Express {
   // Stateless public routes need no session: mounted before the cookie, origin and sign-in checks, so a
   // signed-in rider's live calculations never wait on a user lookup.
   const json = express.json({ limit: config.bodyLimitBytes });
+  // The provider's events carry their own signature and come from its servers: no cookie, origin or JSON parsing first.
+  const payments = paymentProviderFor(config);
+  app.use('/api/payments/webhook', paymentWebhookRoutes(config, payments));
   app.use('/api/calculations', json, calculationRoutes(config));
   app.use('/api/recommendations', json, recommendationRoutes(config));
 
@@ -86,7 +94,11 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/staff/audit', auditRoutes());
   api.use('/products', publicProductRoutes());
   api.use('/staff/products', staffProductRoutes(config));
+  api.use('/staff/orders', staffOrderRoutes(config, payments));
   api.use('/staff', staffCatalogueRoutes());
+  api.use('/cart', cartRoutes(config));
+  api.use('/checkout', checkoutRoutes(config, payments));
+  api.use('/orders', orderRoutes(config, payments));
   // Reads the local mail stand-in; a production server has no such thing and no such route.
   if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
   api.use(notFoundApi);

@@ -36,6 +36,16 @@ export interface Config {
   csvImportMaxBytes: number;
   catalogueCacheTtlMs: number;
   clientDist: string;
+  /** Payment provider (the stripe SDK); by default the local stand-in on 127.0.0.1. */
+  stripeSecretKey: string;
+  stripeWebhookSecret: string;
+  stripeApiHost: string;
+  stripeApiPort: number;
+  stripeApiProtocol: 'http' | 'https';
+  /** How long checkout holds stock for an unpaid order. */
+  reservationMinutes: number;
+  /** How often each app server looks for reservations past their time. */
+  reservationSweepMs: number;
   smtpHost: string;
   smtpPort: number;
   smtpSecure: boolean;
@@ -152,6 +162,13 @@ export function parseConfig(env: Env = process.env): Config {
     csvImportMaxBytes: int('CSV_IMPORT_MAX_BYTES', 20 * 1024 * 1024, 1024, 200 * 1024 * 1024),
     catalogueCacheTtlMs: int('CATALOGUE_CACHE_TTL_MS', 5000, 0, 3_600_000),
     clientDist: resolve(projectRoot, env.CLIENT_DIST || 'dist/client'),
+    stripeSecretKey: env.STRIPE_SECRET_KEY || 'sk_test_loadline_local',
+    stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET || 'whsec_loadline_local_standin',
+    stripeApiHost: env.STRIPE_API_HOST || '127.0.0.1',
+    stripeApiPort: int('STRIPE_API_PORT', 8470, 1, 65535),
+    stripeApiProtocol: oneOf('STRIPE_API_PROTOCOL', 'http', ['http', 'https'] as const),
+    reservationMinutes: int('RESERVATION_MINUTES', 30, 1, 1440),
+    reservationSweepMs: int('RESERVATION_SWEEP_MS', 30_000, 0, 3_600_000),
     smtpHost: env.SMTP_HOST || '127.0.0.1',
     smtpPort: int('SMTP_PORT', 2525, 1, 65535),
     smtpSecure: bool('SMTP_SECURE', false),
@@ -163,6 +180,9 @@ export function parseConfig(env: Env = process.env): Config {
     mailRetryLimit: int('MAIL_RETRY_LIMIT', 10, 0, 100),
     mailRetryDelaySeconds: int('MAIL_RETRY_DELAY_SECONDS', 30, 1, 3600),
   };
+  if (!/^(sk|rk)_(test|live)_\w+$/.test(config.stripeSecretKey)) problems.push('STRIPE_SECRET_KEY must look like sk_test_… or sk_live_…');
+  if (!config.stripeWebhookSecret.startsWith('whsec_')) problems.push('STRIPE_WEBHOOK_SECRET must start with whsec_');
+  if (nodeEnv === 'production' && (!env.STRIPE_SECRET_KEY || !env.STRIPE_WEBHOOK_SECRET)) problems.push('STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are required in production');
   if (problems.length) throw new ConfigError(problems);
   return Object.freeze(config);
 }

@@ -1,6 +1,8 @@
 import 'reflect-metadata';
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
+import { startReservationSweeper } from './checkout/reservations';
+import { paymentProviderFor } from './payments/stripe-provider';
 import { ConfigError, getConfig } from './config';
 import { AppDataSource } from './db/data-source';
 import { startMailWorker, type MailWorker } from './mail/mail-worker';
@@ -41,6 +43,9 @@ if (config.mailWorker) {
   mailWorker = await startMailWorker(config, { poll: true, log });
 }
 
+// Every app server sweeps expired reservations; SKIP LOCKED lets them share the work.
+const stopSweeper = startReservationSweeper(config, paymentProviderFor(config), (msg, err) => (err ? console.error(msg, err) : console.log(msg)));
+
 const app = createApp(config);
 const server = app.listen(config.port, config.host, () => {
   // The port actually bound, so PORT=0 (any free port) can be found by whoever started the process.
@@ -55,6 +60,7 @@ async function shutdown(signal: string) {
   server.close();
   server.closeIdleConnections();
   setTimeout(() => server.closeAllConnections(), 3000).unref();
+  stopSweeper();
   await mailWorker?.stop().catch(() => undefined);
   await AppDataSource.destroy().catch(() => undefined);
   process.exit(0);

@@ -3,6 +3,7 @@ import { Catalogue1764720000000 } from './1764720000000-catalogue';
 import { FitmentTolerances1764806400000 } from './1764806400000-fitment-tolerances';
 import { RateLimitCounters1764892800000 } from './1764892800000-rate-limit-counters';
 import { MailOutbox1764979200000 } from './1764979200000-mail-outbox';
+import { Commerce1764982800000 } from './1764982800000-commerce';
 
 // Listed by hand: globbed .ts migrations do not load under every runner we use.
 export const migrations = [
@@ -11,4 +12,5 @@ export const migrations = [
   FitmentTolerances1764806400000,
   RateLimitCounters1764892800000,
   MailOutbox1764979200000,
+  Commerce1764982800000,
 ];
