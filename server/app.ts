@@ -13,6 +13,7 @@ import { getConfig, type Config } from './config';
 import { cartRoutes } from './cart/cart.routes';
 import { checkoutRoutes } from './checkout/checkout.routes';
 import { orderRoutes, staffOrderRoutes } from './orders/orders.routes';
+import { stockRoutes } from './stock/stock.routes';
 import { paymentWebhookRoutes } from './payments/payments.routes';
 import { paymentProviderFor } from './payments/stripe-provider';
 import { calculationRoutes } from './calculations/calculations.routes';
@@ -95,6 +96,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/products', publicProductRoutes());
   api.use('/staff/products', staffProductRoutes(config));
   api.use('/staff/orders', staffOrderRoutes(config, payments));
+  api.use('/staff/stock', stockRoutes());
   api.use('/staff', staffCatalogueRoutes());
   api.use('/cart', cartRoutes(config));
   api.use('/checkout', checkoutRoutes(config, payments));

@@ -34,7 +34,7 @@ export function cartRoutes(config: Config): Router {
   });
 
   // Runs the engine like a recommendation, so it shares that route's per-address limit.
-  r.post('/spring-set', limiter({ windowMs: 60_000, limit: config.calcRateLimitPerMinute }), async (req, res) => {
+  r.post('/spring-set', limiter({ name: 'recommendations', windowMs: 60_000, limit: config.calcRateLimitPerMinute }), async (req, res) => {
     const dto = await parseBody(AddSpringSetDto, req.body);
     res.status(201).json(await withCart(req, res, config, { create: true }, (em, id) => addSpringSet(em, config, cache, id!, dto)));
   });

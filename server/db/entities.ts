@@ -17,5 +17,7 @@ import { PaymentEvent } from '../payments/PaymentEvent.entity';
 import { ShopSettings } from '../shop/ShopSettings.entity';
 
 import { MailOutbox } from '../mail/MailOutbox.entity';
+import { StockMovement } from '../stock/StockMovement.entity';
+import { Shipment } from '../warehouse/Shipment.entity';
 
-export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent];
+export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent, StockMovement, Shipment];
