@@ -14,6 +14,7 @@ import { cartRoutes } from './cart/cart.routes';
 import { checkoutRoutes } from './checkout/checkout.routes';
 import { orderRoutes, staffOrderRoutes } from './orders/orders.routes';
 import { stockRoutes } from './stock/stock.routes';
+import { warehouseRoutes } from './warehouse/warehouse.routes';
 import { paymentWebhookRoutes } from './payments/payments.routes';
 import { paymentProviderFor } from './payments/stripe-provider';
 import { calculationRoutes } from './calculations/calculations.routes';
@@ -97,6 +98,7 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/staff/products', staffProductRoutes(config));
   api.use('/staff/orders', staffOrderRoutes(config, payments));
   api.use('/staff/stock', stockRoutes());
+  api.use('/warehouse', warehouseRoutes(config));
   api.use('/staff', staffCatalogueRoutes());
   api.use('/cart', cartRoutes(config));
   api.use('/checkout', checkoutRoutes(config, payments));
