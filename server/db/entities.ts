@@ -18,5 +18,7 @@ import { ShopSettings } from '../shop/ShopSettings.entity';
 
 import { MailOutbox } from '../mail/MailOutbox.entity';
 import { Exchange } from '../exchanges/Exchange.entity';
+import { StockMovement } from '../stock/StockMovement.entity';
+import { Shipment } from '../warehouse/Shipment.entity';
 
-export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent, Exchange];
+export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent, StockMovement, Shipment, Exchange];

@@ -47,10 +47,13 @@ export class Exchanges1765340000000 implements MigrationInterface {
     await q.query(`CREATE UNIQUE INDEX exchanges_one_open_per_line ON exchanges (order_line_id) WHERE state <> 'refused'`);
     await q.query(`CREATE INDEX exchanges_user ON exchanges (user_id, created_at DESC)`);
     await q.query(`CREATE INDEX exchanges_state ON exchanges (state, reason)`);
+    // Ledger rows written for an exchange point at it.
+    await q.query(`ALTER TABLE stock_movements ADD CONSTRAINT stock_movements_exchange FOREIGN KEY (exchange_id) REFERENCES exchanges(id)`);
     await q.query(`CREATE UNIQUE INDEX exchanges_payment_session ON exchanges (payment_session_id) WHERE payment_session_id IS NOT NULL`);
   }
 
   async down(q: QueryRunner): Promise<void> {
+    await q.query(`ALTER TABLE stock_movements DROP CONSTRAINT stock_movements_exchange`);
     await q.query(`DROP TABLE exchanges`);
     await q.query(`DROP SEQUENCE exchange_number_seq`);
   }

@@ -4,6 +4,7 @@ import { FitmentTolerances1764806400000 } from './1764806400000-fitment-toleranc
 import { RateLimitCounters1764892800000 } from './1764892800000-rate-limit-counters';
 import { MailOutbox1764979200000 } from './1764979200000-mail-outbox';
 import { Commerce1764982800000 } from './1764982800000-commerce';
+import { StockLedgerFulfilment1765330000000 } from './1765330000000-stock-ledger-fulfilment';
 import { Exchanges1765340000000 } from './1765340000000-exchanges';
 
 // Listed by hand: globbed .ts migrations do not load under every runner we use.
@@ -14,5 +15,6 @@ export const migrations = [
   RateLimitCounters1764892800000,
   MailOutbox1764979200000,
   Commerce1764982800000,
+  StockLedgerFulfilment1765330000000,
   Exchanges1765340000000,
 ];
