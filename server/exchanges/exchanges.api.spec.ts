@@ -47,6 +47,12 @@ async function deliveredSpringOrder(deliveredDaysAgo = 2) {
   return { a, shop, agent, rider, order, fork, shock, okShocks, shockLine, forkLine, staff, warehouse };
 }
 
+/** The ledger rows an exchange wrote, and whether a product's ledger still sums to its on-hand count. */
+const ledgerOf = async (exchangeId: string) =>
+  (await AppDataSource.query(`SELECT product_id, quantity, reason FROM stock_movements WHERE exchange_id = $1 ORDER BY created_at`, [exchangeId])) as { product_id: string; quantity: number; reason: string }[];
+const ledgerSum = async (productId: string) =>
+  ((await AppDataSource.query(`SELECT coalesce(sum(quantity), 0)::int AS n FROM stock_movements WHERE product_id = $1`, [productId])) as { n: number }[])[0]!.n;
+
 const mailsOf = async (exchangeId: string) =>
   ((await AppDataSource.query(`SELECT dedupe_key FROM mail_outbox WHERE dedupe_key LIKE '%' || $1 ORDER BY created_at`, [exchangeId])) as { dedupe_key: string }[]).map((r) => r.dedupe_key.split(':')[0]);
 
@@ -153,6 +159,12 @@ describe('exchanges', () => {
     const shipped = (await a.http.post(`/api/warehouse/exchanges/${ex.id}/ship`).set(warehouse.auth).send({ carrier: 'Parcel Co', trackingNumber: 'TRK123456' }).expect(200)).body as ExchangeDto;
     expect(shipped).toMatchObject({ state: 'shipped', carrier: 'Parcel Co', trackingNumber: 'TRK123456' });
     expect(await stockOf(proposed.productId)).toBe(replacementBefore - 1);
+    expect(await ledgerOf(ex.id)).toEqual([
+      { product_id: shock.id, quantity: 1, reason: 'return' },
+      { product_id: proposed.productId, quantity: -1, reason: 'sale' },
+    ]);
+    expect(await ledgerSum(shock.id)).toBe(await stockOf(shock.id));
+    expect(await ledgerSum(proposed.productId)).toBe(await stockOf(proposed.productId));
     expect(await mailsOf(ex.id)).toEqual(['exchange-requested', 'exchange-approved', 'exchange-received', 'exchange-paid', 'exchange-shipped']);
     // The staff list filters by state and reason.
     const listed = (await a.http.get('/api/staff/exchanges?state=shipped&reason=too-soft').set(staff.auth).expect(200)).body.items as ExchangeDto[];
@@ -170,6 +182,8 @@ describe('exchanges', () => {
     const done = (await a.http.post(`/api/warehouse/exchanges/${ex.id}/receive`).set(warehouse.auth).expect(200)).body as ExchangeDto;
     expect(done).toMatchObject({ state: 'refunded', settlement: 'refunded' });
     expect(await stockOf(fork.id)).toBe(before + forkLine.quantity);
+    expect(await ledgerOf(ex.id)).toEqual([{ product_id: fork.id, quantity: forkLine.quantity, reason: 'return' }]);
+    expect(await ledgerSum(fork.id)).toBe(await stockOf(fork.id));
     const refunds = (await AppDataSource.query(`SELECT provider_refund_id, amount_cents FROM refunds WHERE order_id = $1`, [order.id])) as { provider_refund_id: string; amount_cents: number }[];
     expect(refunds).toEqual([{ provider_refund_id: expect.stringMatching(/^re_/), amount_cents: forkLine.unitPriceCents * forkLine.quantity }]);
     // The stand-in made the refund and says so through its own signed event, which the webhook notes against the order.
@@ -188,5 +202,21 @@ describe('exchanges', () => {
     expect(refused).toMatchObject({ state: 'refused', staffMessage: 'The readings show the spring suits you; try the preload first.' });
     expect(await mailsOf(ex.id)).toEqual(['exchange-requested', 'exchange-refused']);
     expect((await agent.post('/api/exchanges').send({ orderLineId: shockLine.id, kind: 'return', reason: 'too-stiff' })).status).toBe(201);
+  });
+});
+
+describe('exchange counts for the dashboard', () => {
+  it('counts exchanges by state and reason, the same as a plain SQL count', async () => {
+    const { a, agent, shockLine, forkLine, staff } = await deliveredSpringOrder();
+    const ex = (await agent.post('/api/exchanges').send({ orderLineId: shockLine.id, kind: 'exchange', reason: 'too-soft' }).expect(201)).body as ExchangeDto;
+    await agent.post('/api/exchanges').send({ orderLineId: forkLine.id, kind: 'return', reason: 'too-stiff' }).expect(201);
+    await a.http.post(`/api/staff/exchanges/${ex.id}/decision`).set(staff.auth).send({ approve: false, message: 'Try the preload first.' }).expect(200);
+    const { countExchangesByStateAndReason } = await import('./exchange-staff.service');
+    const open = await countExchangesByStateAndReason(['requested', 'approved', 'received']);
+    const bySql = (await AppDataSource.query(`SELECT state, reason, kind, count(*)::int AS count FROM exchanges WHERE state IN ('requested', 'approved', 'received') GROUP BY 1, 2, 3`)) as { state: string; reason: string; kind: string; count: number }[];
+    expect(open).toEqual(expect.arrayContaining(bySql));
+    expect(open).toHaveLength(bySql.length);
+    expect(open).toContainEqual({ state: 'requested', reason: 'too-stiff', kind: 'return', count: expect.any(Number) });
+    expect((await countExchangesByStateAndReason()).some((c) => c.state === 'refused')).toBe(true);
   });
 });
