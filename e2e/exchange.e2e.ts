@@ -2,6 +2,8 @@ import { expect, type Browser, type Page } from '@playwright/test';
 import pg from 'pg';
 import type { RecommendationDto, ShockRecommendationDto } from '../shared/catalogue';
 import type { ExchangeDto, ExchangeProposalDto } from '../shared/commerce/exchange.dto';
+import type { PickListDto } from '../shared/warehouse/fulfilment.dto';
+import type { StockMovementDto } from '../shared/warehouse/stock';
 import { demo, demoPassword, test } from './fixtures';
 import { PaymentStandinPage } from './pages/shop.pages';
 import { SignInPage } from './pages/sign-in.page';
@@ -46,7 +48,7 @@ async function bikeWithSoftShock(page: Page) {
   throw new Error('No demo bike has a too-soft shock with a stiffer ok one for this load');
 }
 
-test('a rider exchanges a too-soft shock spring with a sag check attached; staff approve, the warehouse receives and ships, the difference is paid on the stand-in', async ({ page, browser, signIn }, testInfo) => {
+test('a rider exchanges a too-soft shock spring with a sag check attached; staff approve, the warehouse receives and ships, the difference is paid on the stand-in, the ledger shows each movement', async ({ page, browser, signIn }, testInfo) => {
   test.setTimeout(120_000);
   const baseURL = String(testInfo.project.use.baseURL);
   await page.setViewportSize({ width: 390, height: 844 });
@@ -61,8 +63,14 @@ test('a rider exchanges a too-soft shock spring with a sag check attached; staff
   await page.goto(placed.paymentUrl);
   await new PaymentStandinPage(page).pay('4242424242424242');
   await expect(page.getByText('Thank you — your payment is in.')).toBeVisible({ timeout: 20_000 });
-  // Delivery is the carrier's word, recorded straight in the database here (the order's own shipping is another journey).
-  await sql(`UPDATE orders SET fulfilment_status = 'delivered', packed_at = now(), shipped_at = now(), delivered_at = now() - interval '3 days' WHERE id = $1`, [placed.orderId]);
+  // The warehouse picks, packs, ships and marks the order delivered through its own API (its pages are another journey).
+  const warehouse = await personIn(browser, baseURL, 'warehouse');
+  const w = warehouse.request;
+  const pickList = (await (await w.get(`/api/warehouse/orders/${placed.orderId}`)).json()) as PickListDto;
+  for (const l of pickList.lines) expect((await w.put(`/api/warehouse/orders/${placed.orderId}/lines/${l.id}/picked`, { data: { pickedQuantity: l.quantity } })).ok()).toBe(true);
+  expect((await w.post(`/api/warehouse/orders/${placed.orderId}/pack`)).ok()).toBe(true);
+  expect((await w.post(`/api/warehouse/orders/${placed.orderId}/ship`, { data: { carrier: 'Parcel Express', trackingNumber: 'PX-20260000' } })).ok()).toBe(true);
+  expect((await w.post(`/api/warehouse/orders/${placed.orderId}/deliver`)).ok()).toBe(true);
 
   // The order page offers the exchange; the request page proposes the stiffer rate the engine calls ok.
   await page.goto(`/orders/${placed.orderId}`);
@@ -104,7 +112,6 @@ test('a rider exchanges a too-soft shock spring with a sag check attached; staff
     await staff.getByRole('button', { name: `Approve ${ex.number}` }).click();
     await expect(staff.getByRole('listitem').getByText('Approved: send the spring back')).toBeVisible();
 
-    const warehouse = await personIn(browser, baseURL, 'warehouse');
     await warehouse.goto('/warehouse/returns');
     await warehouse.getByRole('button', { name: `Receive ${ex.number} and restock` }).click();
     await expect(warehouse.getByText('Waiting for the rider to pay the difference.')).toBeVisible();
@@ -134,6 +141,14 @@ test('a rider exchanges a too-soft shock spring with a sag check attached; staff
     await page.screenshot({ path: testInfo.outputPath('my-exchanges-390.png'), fullPage: true });
     await page.setViewportSize({ width: 1440, height: 900 });
     await page.screenshot({ path: testInfo.outputPath('my-exchanges-1440.png'), fullPage: true });
+
+    // The stock ledger shows the return and the replacement, each naming the exchange, and still sums to on-hand.
+    for (const [productId, quantity, reason] of [[shock.id, 1, 'return'], [proposed.productId, -1, 'sale']] as const) {
+      const rows = ((await (await staff.request.get(`/api/staff/stock/movements?productId=${productId}&reason=${reason}`)).json()) as { items: StockMovementDto[] }).items;
+      expect(rows.filter((m) => m.exchangeId === ex.id).map((m) => m.quantity)).toEqual([quantity]);
+      const [sum] = await sql<{ n: number }>(`SELECT coalesce(sum(quantity), 0)::int AS n FROM stock_movements WHERE product_id = $1`, [productId]);
+      expect(sum!.n).toBe(await onHand(productId));
+    }
 
     // One mail per step, each promised once.
     const mails = await sql<{ dedupe_key: string }>(`SELECT dedupe_key FROM mail_outbox WHERE dedupe_key LIKE '%' || $1 ORDER BY created_at`, [ex.id]);
