@@ -8,6 +8,7 @@ import { User } from '../server/accounts/User.entity';
 import { AdapterNeed } from '../server/catalogue/AdapterNeed.entity';
 import { applyProductInput } from '../server/catalogue/catalogue.service';
 import { Product } from '../server/catalogue/Product.entity';
+import { countStockTo } from '../server/stock/stock-ledger';
 import { Fitment } from '../server/fitment/Fitment.entity';
 import { applyFitmentInput, findOrCreateBike } from '../server/fitment/fitment.service';
 import { ShopSettings } from '../server/shop/ShopSettings.entity';
@@ -65,7 +66,10 @@ export async function seedCatalogue(em: EntityManager): Promise<void> {
     const dto = valid(ProductInputDto, plain, `product ${plain.sku}`);
     const p = em.getRepository(Product).create();
     applyProductInput(p, dto);
-    skuIds.set(dto.sku, (await em.save(p)).id);
+    const id = (await em.save(p)).id;
+    // The opening count is the first row of the product's stock ledger, as for a product added by staff.
+    await countStockTo(em, id, dto.stockOnHand, { actorId: null, note: 'opening count' });
+    skuIds.set(dto.sku, id);
   }
   for (const need of products.adapterNeeds) {
     const fitmentId = fitmentIds.get(`${need.fitment.make}|${need.fitment.model}|${need.fitment.variant}`);

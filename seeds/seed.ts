@@ -4,6 +4,9 @@ import { Fitment } from '../server/fitment/Fitment.entity';
 import { Product } from '../server/catalogue/Product.entity';
 import { seedAccounts, seedCatalogue, seedShopSettings } from './demo';
 import { ShopSettings } from '../server/shop/ShopSettings.entity';
+import { Order } from '../server/orders/Order.entity';
+import { getConfig } from '../server/config';
+import { seedDemoOrders } from './demo-orders';
 
 // --if-empty seeds only the parts that are empty, so npm start never overwrites what someone changed in the demo,
 // yet a demo database from before the catalogue existed still gets one.
@@ -26,6 +29,8 @@ try {
     }
     console.log(seeded.length ? `loadline: demo ${seeded.join(' and ')} seeded` : 'loadline: demo data already present, not seeding');
   });
+  // Orders go through the checkout and payment services, each in transactions of their own, after the catalogue is in.
+  if ((await ds.getRepository(Order).count()) === 0) console.log(`loadline: ${await seedDemoOrders(getConfig())} paid demo orders seeded`);
 } finally {
   await ds.destroy();
 }

@@ -14,6 +14,9 @@ import { getConfig, type Config } from './config';
 import { cartRoutes } from './cart/cart.routes';
 import { checkoutRoutes } from './checkout/checkout.routes';
 import { orderRoutes, staffOrderRoutes } from './orders/orders.routes';
+import { stockRoutes } from './stock/stock.routes';
+import { warehouseRoutes } from './warehouse/warehouse.routes';
+import { exchangeRoutes, staffExchangeRoutes, warehouseExchangeRoutes } from './exchanges/exchanges.routes';
 import { paymentWebhookRoutes } from './payments/payments.routes';
 import { paymentProviderFor } from './payments/stripe-provider';
 import { calculationRoutes } from './calculations/calculations.routes';
@@ -104,12 +107,17 @@ export function createApp(config: Config = getConfig()): Express {
   api.use('/products', publicProductRoutes());
   api.use('/staff/products', staffProductRoutes(config));
   api.use('/staff/orders', staffOrderRoutes(config, payments));
+  api.use('/staff/stock', stockRoutes());
+  api.use('/warehouse/exchanges', warehouseExchangeRoutes(config, payments));
+  api.use('/warehouse', warehouseRoutes(config));
+  api.use('/staff/exchanges', staffExchangeRoutes(config, payments));
   api.use('/staff', staffCatalogueRoutes());
   api.use('/cart', cartRoutes(config));
   api.use('/checkout', checkoutRoutes(config, payments));
   api.use('/orders', orderRoutes(config, payments));
   api.use('/bikes', bikeRoutes(config));
   api.use('/setup-sheet', setupSheetRoutes(config));
+  api.use('/exchanges', exchangeRoutes(config));
   // Reads the local mail stand-in; a production server has no such thing and no such route.
   if (config.nodeEnv !== 'production') api.use('/dev/mail', devMailRoutes(config));
   api.use(apiDescriptionRoutes());

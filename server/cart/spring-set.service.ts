@@ -14,8 +14,8 @@ import { SpringSet } from './SpringSet.entity';
 
 type End = 'fork' | 'shock';
 
-/** One end's chosen spring as the engine judged it: the single load, or with cases the first ("as entered") and the verdict over all. */
-function chosen(r: RecommendationDto, end: End, productId: string): { spring: RecommendedSpringDto; verdict: SpringVerdict } | null {
+/** One end's chosen spring as the engine judged it (the cart and exchanges ask the same): the single load, or with cases the first ("as entered") and the verdict over all. */
+export function chosen(r: RecommendationDto, end: End, productId: string): { spring: RecommendedSpringDto; verdict: SpringVerdict } | null {
   const e = r[end];
   if (!isCasesRecommendation(e)) {
     const spring = e.candidates.find((c) => c.id === productId);

@@ -35,6 +35,10 @@ export class Product {
   @Column({ type: 'boolean', default: true })
   active!: boolean;
 
+  // Null: the shop's default low-stock threshold applies.
+  @Column({ name: 'low_stock_threshold', type: 'int', nullable: true })
+  lowStockThreshold!: number | null;
+
   @Column({ name: 'spring_end', type: 'varchar', length: 10, nullable: true })
   springEnd!: SpringEnd | null;
 

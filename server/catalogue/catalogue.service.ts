@@ -27,6 +27,7 @@ import { renderMarkdown } from './markdown';
 import { Product } from './Product.entity';
 import { ProductImage } from './ProductImage.entity';
 import { rateMismatchPct, springGeometry } from './spring-geometry';
+import { countStockTo, isShortOfStock, recordStockMovement } from '../stock/stock-ledger';
 import { rateInUnits } from './units';
 
 const products = (em: EntityManager = AppDataSource.manager) => em.getRepository(Product);
@@ -168,7 +169,6 @@ export function applyProductInput(p: Product, dto: ProductInputDto): void {
     description: dto.description ?? '',
     priceCents: dto.priceCents,
     currency: 'EUR' as const,
-    stockOnHand: dto.stockOnHand,
     binLocation: (dto.binLocation ?? '').trim(),
     active: dto.active,
   });
@@ -231,6 +231,7 @@ export async function createProduct(actorId: string, dto: ProductInputDto): Prom
     const p = products(em).create();
     applyProductInput(p, dto);
     const saved = await saveProduct(em, p);
+    await countStockTo(em, saved.id, dto.stockOnHand, { actorId, note: 'opening count' });
     const after = await staffDto(saved.id, em);
     await recordAudit(em, { actorId, entityType: 'product', entityId: saved.id, action: 'create', before: null, after });
     return after;
@@ -251,6 +252,7 @@ export async function updateProduct(actorId: string, id: string, dto: ProductInp
     const before = await staffDto(id, em);
     applyProductInput(p, dto);
     await saveProduct(em, p);
+    await countStockTo(em, id, dto.stockOnHand, { actorId, note: 'product edited' });
     const after = await staffDto(id, em);
     await recordAudit(em, { actorId, entityType: 'product', entityId: id, action: 'update', before, after });
     return after;
@@ -259,10 +261,23 @@ export async function updateProduct(actorId: string, id: string, dto: ProductInp
   return out;
 }
 
-/** A stock take sets the count; a delivery or a breakage changes it by an amount. Either way one audited transaction. */
+/** A stock take sets the count; a delivery or a breakage changes it by an amount. Either way one ledger row and one audited transaction. */
 export async function updateStock(actorId: string, id: string, dto: StockUpdateDto): Promise<StaffProductDto> {
   const out = await AppDataSource.transaction(async (em) => {
-    const { before, after } = dto.change !== undefined ? await changeStockBy(em, id, dto.change, dto.binLocation) : await setStockCount(em, id, dto.stockOnHand!, dto.binLocation);
+    const p = await lockedProduct(em, id);
+    const before = { stockOnHand: p.stockOnHand, binLocation: p.binLocation };
+    const note = dto.reason?.trim() || (dto.change !== undefined ? 'stock change' : 'stock take');
+    try {
+      if (dto.change !== undefined) await recordStockMovement(em, { productId: id, quantity: dto.change, reason: 'adjustment', note, actorId });
+      else await countStockTo(em, id, dto.stockOnHand!, { actorId, note });
+    } catch (e) {
+      if (!isShortOfStock(e)) throw e;
+      const { available, wanted } = e.details;
+      throw new AppError('conflict', `Only ${available} on hand: taking out ${wanted} would leave ${available - wanted}, and stock cannot go below 0.`, { change: `Only ${available} on hand now.` });
+    }
+    if (dto.binLocation !== undefined && dto.binLocation.trim() !== p.binLocation) await products(em).update({ id }, { binLocation: dto.binLocation.trim() });
+    const now = await products(em).findOneByOrFail({ id });
+    const after = { stockOnHand: now.stockOnHand, binLocation: now.binLocation };
     const why = dto.reason?.trim() ? { reason: dto.reason.trim() } : {};
     const change = dto.change !== undefined ? { change: dto.change } : {};
     await recordAudit(em, { actorId, entityType: 'product', entityId: id, action: 'update', before, after: { ...after, ...change, ...why } });
@@ -270,43 +285,6 @@ export async function updateStock(actorId: string, id: string, dto: StockUpdateD
   });
   catalogueChanged();
   return out;
-}
-
-interface StockSnapshot {
-  stockOnHand: number;
-  binLocation: string;
-}
-
-async function setStockCount(em: EntityManager, id: string, count: number, bin: string | undefined): Promise<{ before: StockSnapshot; after: StockSnapshot }> {
-  const p = await lockedProduct(em, id);
-  const before = { stockOnHand: p.stockOnHand, binLocation: p.binLocation };
-  p.stockOnHand = count;
-  if (bin !== undefined) p.binLocation = bin.trim();
-  await em.save(p);
-  return { before, after: { stockOnHand: p.stockOnHand, binLocation: p.binLocation } };
-}
-
-// One guarded statement: concurrent changes queue on the row and each sees the count the one before left.
-async function changeStockBy(em: EntityManager, id: string, change: number, bin: string | undefined): Promise<{ before: StockSnapshot; after: StockSnapshot }> {
-  const [rows] = (await em.query(
-    `UPDATE products SET stock_on_hand = stock_on_hand + $1, updated_at = now()
-     WHERE id = $2 AND stock_on_hand + $1 >= 0
-     RETURNING stock_on_hand AS "stockOnHand", bin_location AS "binLocation"`,
-    [change, id],
-  )) as [StockSnapshot[], number];
-  const row = rows[0];
-  if (!row) {
-    const p = await products(em).findOneBy({ id });
-    if (!p) throw AppError.notFound('The product');
-    throw new AppError('conflict', `Only ${p.stockOnHand} on hand: taking out ${-change} would leave ${p.stockOnHand + change}, and stock cannot go below 0.`, {
-      change: `Only ${p.stockOnHand} on hand now.`,
-    });
-  }
-  const before = { stockOnHand: row.stockOnHand - change, binLocation: row.binLocation };
-  if (bin === undefined || bin.trim() === row.binLocation) return { before, after: { ...row } };
-  // The row is already locked by the update above, so the bin cannot move under us.
-  await products(em).update({ id }, { binLocation: bin.trim() });
-  return { before, after: { stockOnHand: row.stockOnHand, binLocation: bin.trim() } };
 }
 
 export async function deleteProduct(actorId: string, id: string, storage: ImageStorage): Promise<void> {

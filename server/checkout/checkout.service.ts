@@ -42,13 +42,13 @@ function shortOfStock(rows: CartLineRow[]): (CartLineRow & { wanted: number }) |
 }
 
 /** Cancels this cart's earlier unpaid orders (a second checkout replaces the first), so they hold no stock. */
-async function replaceEarlierOrders(em: EntityManager, cartId: string): Promise<string[]> {
+async function replaceEarlierOrders(em: EntityManager, cartId: string, actorId: string | null): Promise<string[]> {
   const earlier = (await em.query(`SELECT id FROM orders WHERE cart_id = $1 AND status = 'pending' AND payment_status <> 'paid' ORDER BY id`, [cartId])) as { id: string }[];
   const sessions: string[] = [];
   for (const { id } of earlier) {
     const o = await lockOrder(em, { id });
     if (!o || o.status !== 'pending') continue;
-    await releaseStock(em, o);
+    await releaseStock(em, o, { reason: 'cancel', actorId });
     await moveOrder(em, o, { status: 'cancelled' }, { cancelReason: 'replaced' });
     if (o.paymentSessionId) sessions.push(o.paymentSessionId);
   }
@@ -87,7 +87,7 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
     const short = shortOfStock(rows);
     if (short) throw outOfStock(short.name, short.product_id, short.stock_on_hand, short.wanted);
 
-    const replaced = found[0]!.has_pending ? await replaceEarlierOrders(em, cartId) : [];
+    const replaced = found[0]!.has_pending ? await replaceEarlierOrders(em, cartId, owner.userId ?? null) : [];
     const totals = cartTotalsFor(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), settings);
     // Inserted by hand so the database's own number and the reservation time come back in the same round trip.
     const [order] = (await em.query(
@@ -117,7 +117,7 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
         setup: setupOf(r),
       })),
     );
-    await reserveStock(em, rows.map((r) => ({ productId: r.product_id, name: r.name, quantity: r.quantity })));
+    await reserveStock(em, rows.map((r) => ({ productId: r.product_id, name: r.name, quantity: r.quantity })), { orderId: order.id, actorId: owner.userId ?? null });
     return { order, replaced, rows };
   }));
 
@@ -158,7 +158,7 @@ async function cancelUnpayable(orderId: string): Promise<void> {
   await AppDataSource.transaction(async (em) => {
     const o = await lockOrder(em, { id: orderId });
     if (!o || o.status !== 'pending') return;
-    await releaseStock(em, o);
+    await releaseStock(em, o, { reason: 'cancel', actorId: null });
     await moveOrder(em, o, { status: 'cancelled' }, { cancelReason: 'payment-unavailable' });
   });
 }

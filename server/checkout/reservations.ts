@@ -13,7 +13,7 @@ import type { PaymentProvider } from '../payments/payment-provider';
  */
 export async function expireReservation(em: EntityManager, config: Config, order: Order): Promise<boolean> {
   if (order.status !== 'pending' || order.paymentStatus === 'paid') return false;
-  await releaseStock(em, order);
+  await releaseStock(em, order, { reason: 'expiry', actorId: null });
   await moveOrder(em, order, { status: 'cancelled' }, { cancelReason: 'expired' });
   await orderMail.cancelled(em, config, order);
   return true;

@@ -20,4 +20,8 @@ import { MailOutbox } from '../mail/MailOutbox.entity';
 import { RiderBike } from '../bikes/RiderBike.entity';
 import { RiderBikeSagCheck } from '../bikes/RiderBikeSagCheck.entity';
 
-export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent, RiderBike, RiderBikeSagCheck];
+import { Exchange } from '../exchanges/Exchange.entity';
+import { StockMovement } from '../stock/StockMovement.entity';
+import { Shipment } from '../warehouse/Shipment.entity';
+
+export const entities = [User, PasswordResetToken, Bike, Fitment, Product, ProductImage, SpringFitOverride, AdapterNeed, AuditEntry, MailOutbox, ShopSettings, SpringSet, Cart, CartLine, Order, OrderLine, Refund, PaymentEvent, RiderBike, RiderBikeSagCheck, StockMovement, Shipment, Exchange];

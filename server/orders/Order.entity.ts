@@ -80,6 +80,9 @@ export class Order {
   @Column({ name: 'stock_held', type: 'boolean', default: true })
   stockHeld!: boolean;
 
+  @Column({ name: 'packed_by', type: 'uuid', nullable: true })
+  packedBy!: string | null;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt!: Date;
 

@@ -41,6 +41,12 @@ export class OrderLine {
   @Column({ name: 'restocked_quantity', type: 'int', default: 0 })
   restockedQuantity!: number;
 
+  @Column({ name: 'picked_quantity', type: 'int', default: 0 })
+  pickedQuantity!: number;
+
+  @Column({ name: 'shipped_quantity', type: 'int', default: 0 })
+  shippedQuantity!: number;
+
   @Column({ name: 'spring_set_id', type: 'uuid', nullable: true })
   springSetId!: string | null;
 

@@ -7,6 +7,7 @@ import { toSpringSetDto } from '../cart/cart-dto';
 import type { Order } from './Order.entity';
 import { OrderLine } from './OrderLine.entity';
 import { Refund } from './Refund.entity';
+import { shipmentsOf } from '../warehouse/shipments';
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
@@ -65,6 +66,7 @@ export async function toOrderDto(em: EntityManager, o: Order): Promise<OrderDto>
       lineTotalCents: l.lineTotalCents,
       refundedQuantity: l.refundedQuantity,
       restockedQuantity: l.restockedQuantity,
+      shippedQuantity: l.shippedQuantity,
       springSetId: l.springSetId,
       setup: l.setup,
     })),
@@ -83,5 +85,6 @@ export async function toOrderDto(em: EntityManager, o: Order): Promise<OrderDto>
     refunds: refunds.map((r) => ({ id: r.id, amountCents: r.amountCents, reason: r.reason, createdAt: r.createdAt.toISOString() })),
     mayCancel: mayRiderCancel(o),
     mayRefund: mayRefund(o),
+    shipments: await shipmentsOf(em, o.id),
   };
 }

@@ -1,7 +1,8 @@
 import type { EntityManager } from 'typeorm';
 import type { Config } from '../config';
 import { enqueueMail } from '../mail/outbox';
-import { orderCancelledMail, orderConfirmationMail, paymentFailedMail, refundMail, type OrderMailData } from '../mail/templates';
+import { orderCancelledMail, orderConfirmationMail, paymentFailedMail, refundMail, shippedMail, type OrderMailData } from '../mail/templates';
+import { lineTotalCents } from '../../shared/money';
 import { getShopSettings } from '../shop/shop-settings.service';
 import { orderSetupSheetUrl, orderUrl } from './order-access';
 import { orderLinesOf } from './order-dto';
@@ -61,6 +62,16 @@ export const orderMail = {
   async cancelled(em: EntityManager, config: Config, o: Order) {
     const reason = cancelWords[o.cancelReason ?? ''] ?? 'The order was cancelled.';
     await enqueueMail(em, `order-cancelled:${o.id}`, { to: o.email, ...orderCancelledMail({ ...(await mailData(em, config, o)), reason }) });
+  },
+  /** One mail per parcel, listing what is in it, with the carrier and tracking number. */
+  async shipped(em: EntityManager, config: Config, o: Order, parcel: { shipmentId: string; carrier: string; trackingNumber: string; lines: { orderLineId: string; quantity: number }[] }) {
+    const data = await mailData(em, config, o);
+    const all = await orderLinesOf(em, o.id);
+    const lines = parcel.lines.flatMap((p) => {
+      const l = all.find((x) => x.id === p.orderLineId);
+      return l ? [{ name: l.name, sku: l.sku, quantity: p.quantity, unitPriceCents: l.unitPriceCents, lineTotalCents: lineTotalCents(l.unitPriceCents, p.quantity) }] : [];
+    });
+    await enqueueMail(em, `shipped:${parcel.shipmentId}`, { to: o.email, ...shippedMail({ ...data, lines, carrier: parcel.carrier, trackingNumber: parcel.trackingNumber }) });
   },
   async refunded(em: EntityManager, config: Config, o: Order, refundId: string, refundCents: number) {
     await enqueueMail(em, `refund:${refundId}`, { to: o.email, ...refundMail({ ...(await mailData(em, config, o)), refundCents }) });

@@ -44,7 +44,7 @@ export async function cancelByRider(config: Config, provider: PaymentProvider, v
   const { dto, sessionToClose } = await AppDataSource.transaction(async (em) => {
     const o = (await lockOrder(em, { id: orderId }))!;
     if (!mayRiderCancel(o)) throw new AppError('conflict', o.fulfilmentStatus !== 'unfulfilled' ? `Order ${o.number} is already packed; contact the shop to return it.` : `Order ${o.number} is already ${o.status}.`);
-    await releaseStock(em, o);
+    await releaseStock(em, o, { reason: 'cancel', actorId: viewer?.id ?? null });
     const paid = o.paymentStatus === 'paid' || o.paymentStatus === 'partially-refunded';
     await moveOrder(em, o, { status: 'cancelled' }, { cancelReason: 'rider-cancelled' });
     if (paid) {

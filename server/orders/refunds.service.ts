@@ -10,6 +10,7 @@ import { toOrderDto } from './order-dto';
 import { orderMail } from './order-mail';
 import { lockOrder, moveOrder } from './order-moves';
 import { releaseStock } from './order-stock';
+import { recordStockMovement } from '../stock/stock-ledger';
 import type { Order } from './Order.entity';
 import { OrderLine } from './OrderLine.entity';
 import { Refund, type RefundLine } from './Refund.entity';
@@ -37,9 +38,9 @@ export async function recordRefund(em: EntityManager, config: Config, o: Order, 
 }
 
 /** Puts returned units back on the shelf and counts them on their line, so a later release never counts them twice. */
-async function restockLine(em: EntityManager, line: OrderLine, quantity: number): Promise<void> {
+async function restockLine(em: EntityManager, line: OrderLine, quantity: number, actorId: string | null): Promise<void> {
   if (!line.productId || quantity <= 0) return;
-  await em.query(`UPDATE products SET stock_on_hand = stock_on_hand + $2, updated_at = now() WHERE id = $1`, [line.productId, quantity]);
+  await recordStockMovement(em, { productId: line.productId, quantity, reason: 'refund', orderId: line.orderId, actorId });
   await em.query(`UPDATE order_lines SET restocked_quantity = restocked_quantity + $2 WHERE id = $1`, [line.id, quantity]);
 }
 
@@ -53,10 +54,10 @@ export async function refundWholeOrder(config: Config, provider: PaymentProvider
     const providerRefundId = await refundThroughProvider(em, provider, o, amount);
     const lines = await em.getRepository(OrderLine).find({ where: { orderId: o.id }, order: { productId: 'ASC' } });
     if (o.fulfilmentStatus === 'unfulfilled' && o.status !== 'cancelled') {
-      await releaseStock(em, o);
+      await releaseStock(em, o, { reason: 'refund', actorId: opts.actorId });
       await moveOrder(em, o, { status: 'cancelled' }, { cancelReason: 'refunded' });
     } else if (opts.restock) {
-      for (const l of lines) await restockLine(em, l, l.quantity - l.restockedQuantity);
+      for (const l of lines) await restockLine(em, l, l.quantity - l.restockedQuantity, opts.actorId);
     }
     await em.query(`UPDATE order_lines SET refunded_quantity = quantity WHERE order_id = $1`, [o.id]);
     await recordRefund(em, config, o, {
@@ -92,7 +93,7 @@ export async function refundOrder(config: Config, provider: PaymentProvider, act
     const providerRefundId = await refundThroughProvider(em, provider, o, amount);
     for (const { r, line } of picked.sort((a, b) => ((a.line.productId ?? '') < (b.line.productId ?? '') ? -1 : 1))) {
       await em.query(`UPDATE order_lines SET refunded_quantity = refunded_quantity + $2 WHERE id = $1`, [line.id, r.quantity]);
-      if (r.restock) await restockLine(em, line, Math.min(r.quantity, line.quantity - line.restockedQuantity));
+      if (r.restock) await restockLine(em, line, Math.min(r.quantity, line.quantity - line.restockedQuantity), actorId);
     }
     await recordRefund(em, config, o, { providerRefundId, amountCents: amount, reason, lines: picked.map(({ r }) => ({ orderLineId: r.orderLineId, quantity: r.quantity, restock: r.restock })), actorId });
     return toOrderDto(em, o);

@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { expireReservation } from '../checkout/reservations';
+import { applyExchangePaymentEvent, type ExchangeEventOutcome } from '../exchanges/exchange-payments';
 import type { Config } from '../config';
 import { AppDataSource } from '../db/data-source';
 import { orderMail } from '../orders/order-mail';
@@ -7,7 +8,7 @@ import { lockOrder, moveOrder } from '../orders/order-moves';
 import type { Order } from '../orders/Order.entity';
 import type { ProviderEvent } from './payment-provider';
 
-export type EventOutcome = 'duplicate' | 'unknown-order' | 'paid' | 'already-paid' | 'paid-after-cancel' | 'not-yet-paid' | 'failed' | 'expired' | 'refund-noted' | 'ignored' | 'no-change';
+export type EventOutcome = ExchangeEventOutcome | 'duplicate' | 'unknown-order' | 'paid' | 'already-paid' | 'paid-after-cancel' | 'not-yet-paid' | 'failed' | 'expired' | 'refund-noted' | 'ignored' | 'no-change';
 
 const str = (v: unknown) => (typeof v === 'string' ? v : null);
 
@@ -58,6 +59,9 @@ async function markFailed(em: EntityManager, config: Config, o: Order, reason: s
 
 async function apply(em: EntityManager, config: Config, event: ProviderEvent): Promise<{ outcome: EventOutcome; order: Order | null }> {
   const obj = event.object;
+  // A payment page for an exchange's price difference refers to the exchange, not to an order.
+  const forExchange = await applyExchangePaymentEvent(em, config, event);
+  if (forExchange) return { outcome: forExchange, order: null };
   switch (event.type) {
     case 'checkout.session.completed':
     case 'checkout.session.async_payment_succeeded': {

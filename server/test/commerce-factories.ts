@@ -1,5 +1,6 @@
 import type { StaffProductDto } from '../../shared/catalogue';
 import { AppDataSource } from '../db/data-source';
+import { recordStockMovement } from '../stock/stock-ledger';
 import { fitmentInput, productInput, springInput } from './catalogue-factories';
 import { userWithToken } from './factories';
 import type request from 'supertest';
@@ -30,14 +31,21 @@ export async function shopWithSprings(t: { http: ReturnType<typeof request>; con
   return { staff, fitment, shocks, forks, adapter, needsAdapter };
 }
 
-/** A plain product written straight to the table (for stock races, where the staff API is beside the point). */
+/** A plain product written straight to the table (for stock races, where the staff API is beside the point); its stock arrives through the ledger. */
 export async function plainProduct(stock: number, priceCents = 2_500, name = 'Sag measuring tool'): Promise<{ id: string; name: string }> {
-  const [row] = (await AppDataSource.query(
-    `INSERT INTO products (sku, name, kind, price_cents, stock_on_hand) VALUES ($1, $2, 'tool', $3, $4) RETURNING id, name`,
-    [`LL-T-${Math.random().toString(36).slice(2, 10)}`, name, priceCents, stock],
-  )) as { id: string; name: string }[];
-  return row!;
+  return AppDataSource.transaction(async (em) => {
+    const [row] = (await em.query(
+      `INSERT INTO products (sku, name, kind, price_cents, stock_on_hand, bin_location) VALUES ($1, $2, 'tool', $3, 0, 'T-01') RETURNING id, name`,
+      [`LL-T-${Math.random().toString(36).slice(2, 10)}`, name, priceCents],
+    )) as { id: string; name: string }[];
+    if (stock > 0) await recordStockMovement(em, { productId: row!.id, quantity: stock, reason: 'receipt', deliveryRef: 'TEST-OPENING', actorId: null });
+    return row!;
+  });
 }
+
+/** The sum of a product's ledger rows, which must equal its on-hand count. */
+export const ledgerSumOf = async (id: string): Promise<number> =>
+  ((await AppDataSource.query(`SELECT COALESCE(sum(quantity), 0)::int AS s FROM stock_movements WHERE product_id = $1`, [id])) as { s: number }[])[0]!.s;
 
 export const stockOf = async (id: string): Promise<number> =>
   ((await AppDataSource.query(`SELECT stock_on_hand FROM products WHERE id = $1`, [id])) as { stock_on_hand: number }[])[0]!.stock_on_hand;

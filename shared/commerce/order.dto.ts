@@ -5,6 +5,7 @@ import type { CurrencyCode } from '../money';
 import { fulfilmentStatuses, orderStatuses, paymentStatuses, type CancelReason, type FulfilmentStatus, type OrderStatus, type PaymentStatus } from '../order-status';
 import type { SpringSetDto, SpringSetupDto } from './cart.dto';
 import type { ShippingAddressDto } from './checkout.dto';
+import type { ShipmentDto } from '../warehouse/fulfilment.dto';
 
 export interface OrderLineDto {
   id: string;
@@ -17,6 +18,8 @@ export interface OrderLineDto {
   lineTotalCents: number;
   refundedQuantity: number;
   restockedQuantity: number;
+  /** Units that have left in a parcel. */
+  shippedQuantity: number;
   springSetId: string | null;
   setup: SpringSetupDto | null;
 }
@@ -52,6 +55,8 @@ export interface OrderDto extends OrderSummaryDto {
   refunds: { id: string; amountCents: number; reason: string; createdAt: string }[];
   mayCancel: boolean;
   mayRefund: boolean;
+  /** Parcels sent, with carrier and tracking number. */
+  shipments: ShipmentDto[];
 }
 
 /** GET /api/staff/orders */

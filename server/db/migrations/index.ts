@@ -6,6 +6,8 @@ import { MailOutbox1764979200000 } from './1764979200000-mail-outbox';
 import { Commerce1764982800000 } from './1764982800000-commerce';
 import { RiderBikes1765310000000 } from './1765310000000-rider-bikes';
 import { ShopSettingsAdmin1765350000000 } from './1765350000000-shop-settings-admin';
+import { StockLedgerFulfilment1765330000000 } from './1765330000000-stock-ledger-fulfilment';
+import { Exchanges1765340000000 } from './1765340000000-exchanges';
 
 // Listed by hand: globbed .ts migrations do not load under every runner we use.
 export const migrations = [
@@ -16,5 +18,7 @@ export const migrations = [
   MailOutbox1764979200000,
   Commerce1764982800000,
   RiderBikes1765310000000,
+  StockLedgerFulfilment1765330000000,
+  Exchanges1765340000000,
   ShopSettingsAdmin1765350000000,
 ];

@@ -6,3 +6,4 @@ export { orderCancelledMail } from './order-cancelled-mail';
 export { refundMail } from './refund-mail';
 export { shippedMail } from './shipped-mail';
 export { passwordResetMail, type PasswordResetMailData } from './password-reset-mail';
+export { exchangeMail, type ExchangeMailData, type ExchangeMailStep } from './exchange-mail';
