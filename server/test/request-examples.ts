@@ -16,4 +16,12 @@ export const requestExamples: Record<string, () => unknown[]> = {
   FitmentInputDto: () => [fitmentInput()],
   ProductInputDto: () => [springInput()],
   StockUpdateDto: () => [{ stockOnHand: 4 }, { change: -2, reason: 'breakage' }],
+  ShopSettingsInputDto: () => [
+    { shopName: 'Test shop', shopAddress: '1 Test Lane, Testville', currency: 'EUR', vatRateBasisPoints: 2000, shippingFlatCents: 690, freeShippingThresholdCents: 15_000, reservationMinutes: 30, exchangeWindowDays: 30, lowStockThreshold: 3 },
+    { shopName: 'Test shop', shopAddress: '1 Test Lane, Testville', currency: 'EUR', vatRateBasisPoints: 0, shippingFlatCents: 0, freeShippingThresholdCents: 0, reservationMinutes: null, exchangeWindowDays: 0, lowStockThreshold: 0 },
+  ],
+  BikeSagCheckInputDto: () => [
+    { end: 'rear', extendedMm: 600, staticMm: 575, riderMm: { down: 526, up: 532 } },
+    { end: 'front', extendedMm: 700, staticMm: 680, riderMm: 660 },
+  ],
 };
