@@ -100,7 +100,8 @@ test('a rider exchanges a too-soft shock spring with a sag check attached; staff
   const ex = ((await (await page.request.get('/api/exchanges')).json()) as { items: ExchangeDto[] }).items[0]!;
   expect(ex.sagCheck?.result.springVerdict).toBeTruthy();
 
-  expect(ex.differenceCents).toBe(2_000);
+  // 20.00 more per spring, for each spring bought (twin-shock bikes take two).
+  expect(ex.differenceCents).toBe(2_000 * ex.bought.quantity);
   const returnedBefore = await onHand(shock.id);
   const replacementBefore = await onHand(proposed.productId);
   try {
@@ -115,7 +116,7 @@ test('a rider exchanges a too-soft shock spring with a sag check attached; staff
     await warehouse.goto('/warehouse/returns');
     await warehouse.getByRole('button', { name: `Receive ${ex.number} and restock` }).click();
     await expect(warehouse.getByText('Waiting for the rider to pay the difference.')).toBeVisible();
-    expect(await onHand(shock.id)).toBe(returnedBefore + 1);
+    expect(await onHand(shock.id)).toBe(returnedBefore + ex.bought.quantity);
 
     // The rider pays the difference on the stand-in's page; its event marks it paid.
     await page.goto('/exchanges');
@@ -133,7 +134,7 @@ test('a rider exchanges a too-soft shock spring with a sag check attached; staff
     await warehouse.screenshot({ path: testInfo.outputPath('warehouse-returns-1440.png'), fullPage: true });
     await warehouse.getByRole('button', { name: `Ship the replacement for ${ex.number}` }).click();
     await expect(warehouse.getByText('No replacements waiting.')).toBeVisible();
-    expect(await onHand(proposed.productId)).toBe(replacementBefore - 1);
+    expect(await onHand(proposed.productId)).toBe(replacementBefore - ex.bought.quantity);
 
     await page.reload();
     await expect(page.getByText('Replacement shipped')).toBeVisible();

@@ -26,7 +26,7 @@ test('a new rider finds springs for a demo bike, adds the set, checks out as a g
 
   const checkout = new CheckoutPage(page);
   await checkout.fill({ ...guestAddress, email });
-  const total = await page.getByTestId('cart-total').textContent();
+  const total = await page.locator('#main').getByTestId('cart-total').textContent();
   const bought = (await (await page.request.get('/api/cart')).json()) as { lines: { sku: string; quantity: number }[]; sets: { setup: { preloadMm: number }[] }[] };
   await checkout.continueToPayment();
 
