@@ -144,7 +144,7 @@ test('a rider exchanges a too-soft shock spring with a sag check attached; staff
     await page.screenshot({ path: testInfo.outputPath('my-exchanges-1440.png'), fullPage: true });
 
     // The stock ledger shows the return and the replacement, each naming the exchange, and still sums to on-hand.
-    for (const [productId, quantity, reason] of [[shock.id, 1, 'return'], [proposed.productId, -1, 'sale']] as const) {
+    for (const [productId, quantity, reason] of [[shock.id, ex.bought.quantity, 'return'], [proposed.productId, -ex.bought.quantity, 'sale']] as const) {
       const rows = ((await (await staff.request.get(`/api/staff/stock/movements?productId=${productId}&reason=${reason}`)).json()) as { items: StockMovementDto[] }).items;
       expect(rows.filter((m) => m.exchangeId === ex.id).map((m) => m.quantity)).toEqual([quantity]);
       const [sum] = await sql<{ n: number }>(`SELECT coalesce(sum(quantity), 0)::int AS n FROM stock_movements WHERE product_id = $1`, [productId]);
