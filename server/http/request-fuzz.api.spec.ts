@@ -80,7 +80,7 @@ function casesFor(route: MountedRoute): fc.Arbitrary<Case> {
   const spec = route.spec!;
   if (spec.query) {
     const schema = schemas[spec.query.name]!;
-    const asStrings = fitting(schema, schemas).map((q) => Object.fromEntries(Object.entries(q as object).map(([k, v]) => [k, String(v)])));
+    const asStrings = fitting(schema, schemas).map((q) => Object.fromEntries(Object.entries(q as object).map(([k, v]) => [k, typeof v === 'object' && v !== null ? JSON.stringify(v) : String(v)])));
     return fc.oneof(
       asStrings.map((q) => ({ kind: 'query' as const, text: queryText(q) })),
       bodiesFor(schema, schemas).map((q) => ({ kind: 'query' as const, text: queryText(q) })),

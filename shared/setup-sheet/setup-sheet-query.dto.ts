@@ -1,5 +1,5 @@
 import { Type } from 'class-transformer';
-import { IsNumber, IsOptional, IsUUID, Max, Min } from 'class-validator';
+import { IsNumber, IsOptional, IsString, IsUUID, Max, MaxLength, Min } from 'class-validator';
 import { isIn } from '../catalogue/common';
 import { ridingStyles, type RidingStyle } from '../catalogue/constants';
 import { riderRanges } from '../catalogue/ranges';
@@ -58,7 +58,8 @@ export class SetupSheetQueryDto {
 /** GET /api/setup-sheet/orders/:id(/pdf): an order's spring set as bought. */
 export class OrderSheetQueryDto {
   @IsOptional()
-  @Type(() => String)
+  @IsString({ message: 'The order link’s token is text.' })
+  @MaxLength(200, { message: 'The order link’s token is at most 200 characters.' })
   token?: string;
 
   @IsOptional()
