@@ -15,6 +15,9 @@ export function stockRoutes(): Router {
   r.get('/movements', async (req, res) => {
     res.json(await stock.listMovements(await parseQuery(StockMovementQueryDto, req.query)));
   });
+  r.get('/products', async (_req, res) => {
+    res.json({ items: await stock.stockProducts() });
+  });
   r.get('/low', async (_req, res) => {
     res.json(await stock.lowStockList());
   });
