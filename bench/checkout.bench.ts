@@ -13,14 +13,15 @@ const standinPort = Number(process.env.BENCH_STRIPE_API_PORT ?? 8472);
 
 const pct = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
 
-/** The database's own floor: pgbench running the checkout's guarded stock update and an order insert on the same hot row. */
+/** The database's own floor: pgbench running the checkout's guarded stock update, its ledger row and an order insert on the same hot row. */
 function pgbenchFloor(productId: string): number {
   const dir = mkdtempSync(join(tmpdir(), 'loadline-pgbench-'));
   const script = join(dir, 'checkout.sql');
   writeFileSync(
     script,
     `BEGIN;
-UPDATE products SET stock_on_hand = stock_on_hand - 1, updated_at = now() WHERE id = '${productId}' AND active AND stock_on_hand >= 1 RETURNING id;
+UPDATE products SET stock_on_hand = stock_on_hand - 1, updated_at = now() WHERE id = '${productId}' AND active AND stock_on_hand + -1 >= 0 RETURNING stock_on_hand;
+INSERT INTO stock_movements (product_id, quantity, reason, note, stock_after) VALUES ('${productId}', -1, 'sale', '', 0);
 INSERT INTO orders (email, customer_name, shipping_address, status, payment_status, fulfilment_status, currency, subtotal_cents, shipping_cents, vat_cents, total_cents, vat_rate_bp, reserved_until)
   VALUES ('floor@example.test', 'Floor', '{}', 'pending', 'awaiting', 'unfulfilled', 'EUR', 3900, 690, 765, 4590, 2000, now() + interval '30 minutes');
 COMMIT;

@@ -101,6 +101,7 @@ const matrix: Record<string, Access> = {
   'POST /api/staff/stock/deliveries': ['staff', 'warehouse', 'admin'],
   'GET /api/staff/stock/movements': ['staff', 'warehouse', 'admin'],
   'GET /api/staff/stock/low': ['staff', 'warehouse', 'admin'],
+  'GET /api/staff/stock/products': ['staff', 'warehouse', 'admin'],
   'PUT /api/staff/stock/products/:id/threshold': staff,
   'GET /api/warehouse/orders': ['warehouse', 'admin'],
   'GET /api/warehouse/orders/:id': ['warehouse', 'admin'],

@@ -27,6 +27,8 @@ describe('stock', () => {
     expect(Date.parse(ledger.items[0]!.createdAt)).toBeGreaterThan(Date.now() - 60_000);
     const staff = await userWithToken(t.config, 'staff');
     expect((await t.http.post('/api/staff/stock/deliveries').set(staff.auth).send({ deliveryRef: 'DN-2042', lines: [{ productId: p.id, quantity: 1 }] })).status).toBe(201);
+    const shelf = (await t.http.get('/api/staff/stock/products').set(warehouse.auth).expect(200)).body.items as { id: string; stockOnHand: number; binLocation: string }[];
+    expect(shelf.find((x) => x.id === p.id)).toMatchObject({ stockOnHand: 8, binLocation: 'T-01' });
   });
 
   it('a delivery with bad lines is a 400 naming each field, and receives nothing', async () => {
@@ -48,7 +50,7 @@ describe('stock', () => {
   it('riders and guests cannot see or change stock', async () => {
     const t = testApp();
     const rider = await userWithToken(t.config, 'rider');
-    for (const [method, path] of [['get', '/api/staff/stock/movements'], ['get', '/api/staff/stock/low'], ['post', '/api/staff/stock/deliveries']] as const) {
+    for (const [method, path] of [['get', '/api/staff/stock/movements'], ['get', '/api/staff/stock/low'], ['get', '/api/staff/stock/products'], ['post', '/api/staff/stock/deliveries']] as const) {
       expect((await t.http[method](path).send({})).status).toBe(401);
       expect((await t.http[method](path).set(rider.auth).send({})).status).toBe(403);
     }
@@ -76,6 +78,16 @@ describe('stock', () => {
       ['LL-LOW-0', defaultLowStockThreshold, true],
       ['LL-LOW-P', 25, false],
     ]);
+    // A product without its own threshold follows the shop settings' threshold as the admin changes it.
+    const admin = await userWithToken(t.config, 'admin');
+    const { updatedAt: _at, ...settings } = (await t.http.get('/api/admin/shop-settings').set(admin.auth).expect(200)).body as Record<string, unknown>;
+    await t.http.put('/api/admin/shop-settings').set(admin.auth).send({ ...settings, lowStockThreshold: defaultLowStockThreshold + 20 }).expect(200);
+    low = (await t.http.get('/api/staff/stock/low').set(staff.auth).expect(200)).body as LowStockListDto;
+    expect(low.items.map((i) => [i.sku, i.threshold, i.thresholdIsDefault])).toEqual([
+      ['LL-LOW-0', defaultLowStockThreshold + 20, true],
+      ['LL-LOW-P', 25, false],
+    ]);
+    await t.http.put('/api/admin/shop-settings').set(admin.auth).send(settings).expect(200);
     // Opening counts of products added by staff are ledger rows too.
     for (const p of [empty, atDefault, plenty]) expect(await ledgerSumOf(p.id)).toBe(await stockOf(p.id));
     expect((await t.http.put(`/api/staff/stock/products/${plenty.id}/threshold`).set(staff.auth).send({ threshold: -1 })).status).toBe(400);

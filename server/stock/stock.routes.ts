@@ -14,6 +14,9 @@ export function stockRoutes(): Router {
   r.get('/movements', endpoint({ summary: 'The stock ledger, filtered and paged', query: StockMovementQueryDto }, async ({ query }, _req, res) => {
     res.json(await stock.listMovements(query));
   }));
+  r.get('/products', endpoint({ summary: 'Every product’s SKU, bin and count, for the delivery form' }, async (_input, _req, res) => {
+    res.json({ items: await stock.stockProducts() });
+  }));
   r.get('/low', endpoint({ summary: 'Products at or under their low-stock threshold' }, async (_input, _req, res) => {
     res.json(await stock.lowStockList());
   }));

@@ -1,15 +1,16 @@
 import type { EntityManager } from 'typeorm';
-import { defaultLowStockThreshold, type StockMovementDto } from '../../shared/warehouse/stock';
-import type { DeliveryReceivedDto, LowStockListDto, ReceiveDeliveryDto, StockMovementPageDto, StockMovementQueryDto } from '../../shared/warehouse/stock.dto';
+import type { StockMovementDto } from '../../shared/warehouse/stock';
+import type { DeliveryReceivedDto, LowStockListDto, ReceiveDeliveryDto, StockMovementPageDto, StockMovementQueryDto, StockProductDto } from '../../shared/warehouse/stock.dto';
 import { recordAudit } from '../audit/audit.service';
 import { catalogueChanged } from '../catalogue/catalogue-cache';
 import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
+import { getShopSettings } from '../shop/shop-settings.service';
 import { recordStockMovement } from './stock-ledger';
 
-/** The threshold a product without its own is judged by (the shop settings will carry it; until then a constant). */
-export async function lowStockDefault(_em: EntityManager = AppDataSource.manager): Promise<number> {
-  return defaultLowStockThreshold;
+/** The threshold a product without its own is judged by: the shop settings' low-stock threshold. */
+export async function lowStockDefault(em?: EntityManager): Promise<number> {
+  return (await getShopSettings(em)).lowStockThreshold;
 }
 
 /** A delivery arrives: each line is a receipt in the ledger (who, when, the delivery's reference), all in one transaction. */
@@ -123,4 +124,10 @@ export async function setLowStockThreshold(actorId: string, productId: string, t
     await recordAudit(em, { actorId, entityType: 'product', entityId: productId, action: 'update', before: { lowStockThreshold: p.low_stock_threshold }, after: { lowStockThreshold: threshold } });
     return { productId, threshold };
   });
+}
+
+/** Every product with its shelf, by SKU, for the delivery form (the warehouse has no catalogue pages). */
+export async function stockProducts(): Promise<StockProductDto[]> {
+  const rows = (await AppDataSource.query(`SELECT id, sku, name, bin_location, stock_on_hand FROM products ORDER BY sku LIMIT 5000`)) as { id: string; sku: string; name: string; bin_location: string; stock_on_hand: number }[];
+  return rows.map((r) => ({ id: r.id, sku: r.sku, name: r.name, binLocation: r.bin_location, stockOnHand: r.stock_on_hand }));
 }

@@ -72,3 +72,12 @@ export interface LowStockListDto {
   defaultThreshold: number;
   items: LowStockItemDto[];
 }
+
+/** A product as the stock pages pick it: enough to find it by SKU and see its shelf. */
+export interface StockProductDto {
+  id: string;
+  sku: string;
+  name: string;
+  binLocation: string;
+  stockOnHand: number;
+}
