@@ -182,6 +182,28 @@ describe('staff dashboard', () => {
     expect(states!.n).toBe(5);
   });
 
+  it('recommendations served count the answers the finder showed in the browser as well as the server’s, once each', async () => {
+    const a = await paymentsApp();
+    open.push(a);
+    const shop = await shopWithSprings(a);
+    const staff = await userWithToken(a.config, 'staff');
+    await flushRecommendationCounts();
+    await AppDataSource.query(`DELETE FROM recommendation_counts`);
+    await a.http.post('/api/recommendations').send({ fitmentId: shop.fitment.id, ...load }).expect(200);
+    await a.http.post('/api/recommendations/shown').send({ fitmentId: shop.fitment.id }).expect(204);
+    await a.http.post('/api/recommendations/shown').send({ fitmentId: shop.fitment.id }).expect(204);
+    // A bike that is not in the catalogue counts nothing; a malformed body is named per field.
+    expect((await a.http.post('/api/recommendations/shown').send({ fitmentId: '00000000-0000-4000-8000-000000000000' })).status).toBe(404);
+    const bad = await a.http.post('/api/recommendations/shown').send({ fitmentId: 'bike' });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.fields)).toEqual(['fitmentId']);
+    await flushRecommendationCounts();
+    const [row] = (await AppDataSource.query(`SELECT coalesce(sum(served), 0)::int AS n FROM recommendation_counts WHERE day = $1`, [day(0)])) as { n: number }[];
+    expect(row!.n).toBe(3);
+    const d = (await a.http.get('/api/staff/dashboard').query({ from: day(0), to: day(0) }).set(staff.auth).expect(200)).body as DashboardDto;
+    expect(d.recommendations.served).toBe(row!.n);
+  });
+
   it('the low-stock list holds the active products at or under the shop’s threshold, lowest first', async () => {
     const a = await paymentsApp();
     open.push(a);
