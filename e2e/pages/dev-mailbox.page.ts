@@ -10,8 +10,21 @@ export class DevMailboxPage {
     await expect(this.page.getByRole('heading', { name: 'Development mailbox' })).toBeVisible();
   }
 
-  /** The mail worker sends within a few seconds; refresh until the mail is listed. */
+  /**
+   * The mail worker sends within a few seconds, longer on a loaded machine: ask the mail stand-in (through the signed-in
+   * admin's API) until the mail is caught, then refresh the page until it lists it.
+   */
   async waitForMail(subject: string, to: string): Promise<Locator> {
+    await expect
+      .poll(
+        async () => {
+          const res = await this.page.request.get('/api/dev/mail');
+          if (!res.ok()) return 0;
+          return ((await res.json()) as { to: string; subject: string }[]).filter((m) => m.subject.includes(subject) && m.to.includes(to)).length;
+        },
+        { message: `the mail "${subject}" to ${to} reaches the mail stand-in`, timeout: 60_000, intervals: [500, 1_000, 2_000] },
+      )
+      .toBeGreaterThan(0);
     const item = this.page.getByRole('navigation', { name: 'Captured mail' }).getByRole('button').filter({ hasText: subject }).filter({ hasText: to });
     await expect(async () => {
       await this.page.getByRole('button', { name: 'Refresh' }).click();
