@@ -41,7 +41,7 @@ test('staff see the dashboard with each chart’s figures in a table beside it, 
   await page.goto('/staff');
   await page.getByRole('navigation', { name: 'Back office' }).getByRole('link', { name: 'Dashboard' }).click();
   await expect(page.getByRole('heading', { name: 'Dashboard' })).toBeVisible();
-  for (const name of ['Orders and revenue per day', 'Springs sold most', 'Recommendations that ended in a purchase', 'Low stock']) {
+  for (const name of ['Orders and revenue per day', 'Springs sold most', 'Recommendations that ended in a purchase', 'Open exchanges and returns by reason', 'Low stock']) {
     await expect(page.getByRole('table', { name })).toBeVisible();
   }
   await expect(page.getByRole('img', { name: 'Orders and revenue per day' })).toBeVisible();

@@ -3,7 +3,7 @@ import { expect, test } from './fixtures';
 
 test('a rider asks for a password reset; the admin finds the mail in the development mailbox and its link works', async ({ page, browser, signIn }) => {
   // Two people, a queued mail and a password change: longer than one page's journey, more so on a busy machine.
-  test.setTimeout(60_000);
+  test.setTimeout(120_000);
   // A rider of this run only, so the mail found is the one this journey caused.
   const email = `reset-${Date.now()}@example.test`;
   const rider = await browser.newContext({ baseURL: test.info().project.use.baseURL });

@@ -9,6 +9,8 @@ test('the finder answers as the rider types, in kg or lb, with a sag chart per e
   const finder = new FindSpringsPage(page);
   await finder.open();
   await finder.chooseBike('Corvane', 'Ridgeline 800', /2019–2022/);
+  // The answer worked out in the browser is counted for the dashboard once the rider pauses.
+  const shown = page.waitForRequest((r) => r.method() === 'POST' && r.url().endsWith('/api/recommendations/shown'), { timeout: 20_000 });
   await page.getByLabel('Rider', { exact: true }).fill('95');
   await page.getByLabel('Riding gear').fill('8');
   await page.getByLabel('Panniers (both together)').fill('20');
@@ -21,6 +23,7 @@ test('the finder answers as the rider types, in kg or lb, with a sag chart per e
   await expect(firstShock.getByText('Suits your load')).toBeVisible();
   await expect(firstShock.getByRole('radio')).toBeChecked();
   await expect(firstShock.getByTestId(/-adapters$/)).toContainText(/Needs|No adapter needed/);
+  expect(((await shown).postDataJSON() as { fitmentId: string }).fitmentId).toMatch(/^[0-9a-f-]{36}$/);
   const bandKg = await finder.rateBand('Shock spring').innerText();
   const bandNPerMm = bandKg.match(/\(([\d.]+)–([\d.]+) N\/mm\)/)!;
   expect(bandKg).toMatch(/kgf\/mm/);

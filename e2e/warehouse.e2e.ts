@@ -89,7 +89,7 @@ test('the warehouse picks, packs and ships a paid demo order with a tracking num
   await signIn('admin');
   const mailbox = new DevMailboxPage(page);
   await mailbox.openFromAccounts();
-  await (await mailbox.waitForMail(`Order ${order.number} is on its way`, demo.rider)).click();
+  await (await mailbox.waitForMail(`Order ${order.number} is on its way`, demo.rider, tracking)).click();
   await mailbox.showText();
   await expect(mailbox.mail(`Order ${order.number} is on its way`).getByTestId('mail-text')).toContainText(`Carrier: Parcel Co, tracking number ${tracking}.`);
 });

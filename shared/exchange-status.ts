@@ -18,6 +18,9 @@ export const exchangeMoves = {
   return: { requested: ['approved', 'refused'], approved: ['received'], received: ['refunded'], refused: [], shipped: [], refunded: [] },
 } as const satisfies Record<ExchangeKind, Record<ExchangeState, readonly ExchangeState[]>>;
 
+/** States a request can still move on from: the ones waiting on staff, the warehouse or a payment. */
+export const openExchangeStates: readonly ExchangeState[] = exchangeStates.filter((s) => exchangeKinds.some((k) => exchangeMoves[k][s].length > 0));
+
 export interface ExchangeStates {
   kind: ExchangeKind;
   state: ExchangeState;

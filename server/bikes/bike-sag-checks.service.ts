@@ -1,5 +1,5 @@
 import type { BikeSagCheckDto, BikeSagCheckInputDto } from '../../shared/bikes';
-import { sagCheckInputForBike } from '../../shared/bikes';
+import { sagCheckInputForBike, sagLoadOf } from '../../shared/bikes';
 import type { SagCheckRequestDto } from '../../shared/dto/calculations.dto';
 import type { User } from '../accounts/User.entity';
 import { sagCheck } from '../calculations/calculations.service';
@@ -23,7 +23,7 @@ export async function addSagCheck(user: User, bikeId: string, dto: BikeSagCheckI
   const fitment = await getFitment(bike.fitmentId);
   const r = await recommend({ fitmentId: bike.fitmentId, ridingStyle: bike.ridingStyle, ...bike.load }, cache);
   if ('cases' in r.fork || 'cases' in r.shock) throw new Error('A recommendation without cases came back in the cases shape');
-  const input = sagCheckInputForBike(fitment, { targets: r.targets, fork: r.fork, shock: r.shock }, dto);
+  const input = sagCheckInputForBike(fitment, sagLoadOf(r), dto);
   const result = sagCheck(input as SagCheckRequestDto);
   const t = dto.end === 'rear' ? r.targets.shock : r.targets.fork;
   return AppDataSource.transaction(async (em) => {

@@ -9,6 +9,7 @@ import {
   type SpringBikeFitDto,
   type SpringFitDto,
 } from '../../shared/catalogue';
+import type { FittingSpringDto } from '../../shared/recommend/recommend';
 import { recordAudit } from '../audit/audit.service';
 import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
@@ -189,21 +190,8 @@ export async function setAdapters(actorId: string, fitmentId: string, springId: 
   return out;
 }
 
-export interface FittingSpring {
-  id: string;
-  sku: string;
-  name: string;
-  end: SpringEnd;
-  rateNPerMm: number;
-  freeLengthMm: number;
-  solidLengthMm: number;
-  priceCents: number;
-  inStock: boolean;
-  adapters: AdapterNeedDto[];
-}
-
 /** The active springs that fit a fitment, with their adapters: what a recommendation chooses from. */
-export async function fittingSprings(fitmentId: string, em: EntityManager = AppDataSource.manager): Promise<FittingSpring[]> {
+export async function fittingSprings(fitmentId: string, em: EntityManager = AppDataSource.manager): Promise<FittingSpringDto[]> {
   const rows = await fitRows(em, fitmentId, { fittingActive: true });
   const adapters = await adaptersFor(em, fitmentId, rows.map((r) => r.id));
   return rows.map((r) => ({

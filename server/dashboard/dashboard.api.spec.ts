@@ -6,12 +6,11 @@ import { AppDataSource } from '../db/data-source';
 import { flushRecommendationCounts } from '../recommendations/served-counter';
 import { address, load, plainProduct, shopWithSprings } from '../test/commerce-factories';
 import { userWithToken } from '../test/factories';
+import type { ExchangeDto } from '../../shared/commerce/exchange.dto';
 import { paymentsApp, type PaymentsApp } from '../test/payments-standin';
-import { openExchanges, provideOpenExchanges } from './open-exchanges';
 
 let open: PaymentsApp[] = [];
 afterEach(async () => {
-  provideOpenExchanges(undefined);
   for (const a of open) await a.close();
   open = [];
 });
@@ -75,7 +74,43 @@ async function seededHistory() {
   // Earlier days' served counts, as the counter would have written them then.
   await AppDataSource.query(`INSERT INTO recommendation_counts (day, served) VALUES ($1, 7), ($2, 5), ($3, 9)`, [day(-2), day(-6), day(-20)]);
   const staff = await userWithToken(a.config, 'staff');
+  await exchangesInEveryState(a, staff, orders.map((o) => o.id));
   return { a, staff, shop, tool };
+}
+
+/**
+ * Exchanges and returns on the history's spring lines, walked through the rider's, staff's and warehouse's routes to
+ * each state: open ones (requested, approved, received) and finished ones (refused, shipped) of every reason.
+ */
+async function exchangesInEveryState(a: PaymentsApp, staff: { auth: Record<string, string> }, orderIds: string[]) {
+  const rider = await userWithToken(a.config, 'rider');
+  const warehouse = await userWithToken(a.config, 'warehouse');
+  await AppDataSource.query(
+    `UPDATE orders SET user_id = $2, fulfilment_status = 'delivered', packed_at = now(), shipped_at = now(), delivered_at = now() - interval '1 day' WHERE id = ANY($1::uuid[])`,
+    [orderIds, rider.user.id],
+  );
+  const lines = (await AppDataSource.query(`SELECT id FROM order_lines WHERE kind = 'spring' AND order_id = ANY($1::uuid[]) ORDER BY id`, [orderIds])) as { id: string }[];
+  const walks: { kind: 'exchange' | 'return'; reason: 'too-soft' | 'too-stiff' | 'other'; to: 'requested' | 'approved' | 'refused' | 'received' | 'shipped' }[] = [
+    { kind: 'exchange', reason: 'too-soft', to: 'requested' },
+    { kind: 'return', reason: 'too-soft', to: 'requested' },
+    { kind: 'exchange', reason: 'too-stiff', to: 'approved' },
+    { kind: 'exchange', reason: 'other', to: 'received' },
+    { kind: 'exchange', reason: 'too-soft', to: 'refused' },
+    { kind: 'exchange', reason: 'too-stiff', to: 'shipped' },
+    { kind: 'return', reason: 'other', to: 'refused' },
+  ];
+  expect(lines.length).toBeGreaterThanOrEqual(walks.length);
+  for (const [i, w] of walks.entries()) {
+    const body = { orderLineId: lines[i]!.id, kind: w.kind, reason: w.reason, ...(w.reason === 'other' ? { reasonText: 'Knocks over small bumps' } : {}) };
+    const ex = (await a.http.post('/api/exchanges').set(rider.auth).send(body).expect(201)).body as ExchangeDto;
+    if (w.to === 'requested') continue;
+    const approve = w.to !== 'refused';
+    await a.http.post(`/api/staff/exchanges/${ex.id}/decision`).set(staff.auth).send({ approve, message: approve ? 'Send it back to us.' : 'Try the preload first.' }).expect(200);
+    if (w.to === 'approved' || w.to === 'refused') continue;
+    await a.http.post(`/api/warehouse/exchanges/${ex.id}/receive`).set(warehouse.auth).expect(200);
+    if (w.to === 'received') continue;
+    await a.http.post(`/api/warehouse/exchanges/${ex.id}/ship`).set(warehouse.auth).send({ carrier: 'Parcel Co', trackingNumber: 'TRK-DASH-1' }).expect(200);
+  }
 }
 
 describe('staff dashboard', () => {
@@ -129,6 +164,44 @@ describe('staff dashboard', () => {
     expect(served!.n).toBe(6 + 7 + 5);
     expect(d.recommendations).toEqual({ served: served!.n, purchased: bought!.n, shareBasisPoints: Math.round((bought!.n * 10_000) / served!.n) });
     expect(bought!.n).toBe(3);
+
+    // Open exchanges and returns by reason: every state a request can still move on from, counted here by hand.
+    const openRows = (await AppDataSource.query(
+      `SELECT reason, count(*)::int AS n FROM exchanges WHERE state IN ('requested', 'approved', 'received') GROUP BY reason`,
+    )) as { reason: string; n: number }[];
+    const openBy = (r: string) => openRows.find((x) => x.reason === r)?.n ?? 0;
+    expect(d.exchanges.byReason).toEqual([
+      { reason: 'too-soft', count: openBy('too-soft') },
+      { reason: 'too-stiff', count: openBy('too-stiff') },
+      { reason: 'other', count: openBy('other') },
+    ]);
+    expect(d.exchanges.total).toBe(openRows.reduce((n, r) => n + r.n, 0));
+    // Two too soft asked, one too stiff approved, one other received; the refused and the shipped ones are done.
+    expect(d.exchanges.byReason.map((r) => r.count)).toEqual([2, 1, 1]);
+    const [states] = (await AppDataSource.query(`SELECT count(DISTINCT state)::int AS n FROM exchanges`)) as { n: number }[];
+    expect(states!.n).toBe(5);
+  });
+
+  it('recommendations served count the answers the finder showed in the browser as well as the server’s, once each', async () => {
+    const a = await paymentsApp();
+    open.push(a);
+    const shop = await shopWithSprings(a);
+    const staff = await userWithToken(a.config, 'staff');
+    await flushRecommendationCounts();
+    await AppDataSource.query(`DELETE FROM recommendation_counts`);
+    await a.http.post('/api/recommendations').send({ fitmentId: shop.fitment.id, ...load }).expect(200);
+    await a.http.post('/api/recommendations/shown').send({ fitmentId: shop.fitment.id }).expect(204);
+    await a.http.post('/api/recommendations/shown').send({ fitmentId: shop.fitment.id }).expect(204);
+    // A bike that is not in the catalogue counts nothing; a malformed body is named per field.
+    expect((await a.http.post('/api/recommendations/shown').send({ fitmentId: '00000000-0000-4000-8000-000000000000' })).status).toBe(404);
+    const bad = await a.http.post('/api/recommendations/shown').send({ fitmentId: 'bike' });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.fields)).toEqual(['fitmentId']);
+    await flushRecommendationCounts();
+    const [row] = (await AppDataSource.query(`SELECT coalesce(sum(served), 0)::int AS n FROM recommendation_counts WHERE day = $1`, [day(0)])) as { n: number }[];
+    expect(row!.n).toBe(3);
+    const d = (await a.http.get('/api/staff/dashboard').query({ from: day(0), to: day(0) }).set(staff.auth).expect(200)).body as DashboardDto;
+    expect(d.recommendations.served).toBe(row!.n);
   });
 
   it('the low-stock list holds the active products at or under the shop’s threshold, lowest first', async () => {
@@ -145,12 +218,6 @@ describe('staff dashboard', () => {
     const expected = (await AppDataSource.query(`SELECT name, stock_on_hand FROM products WHERE active AND stock_on_hand <= 3 ORDER BY stock_on_hand, sku`)) as { name: string; stock_on_hand: number }[];
     expect(d.lowStock.map((p) => [p.name, p.stockOnHand])).toEqual(expected.map((p) => [p.name, p.stock_on_hand]));
     expect(d.lowStock.map((p) => p.name)).toEqual(['Empty shelf tool', 'Three left tool']);
-  });
-
-  it('open exchanges come from the exchanges module when it provides them, and say they are not measured until then', async () => {
-    expect(await openExchanges()).toEqual({ available: false, total: 0, byReason: [] });
-    provideOpenExchanges({ openExchangesByReason: async () => [{ reason: 'too-soft', count: 2 }, { reason: 'too-stiff', count: 1 }] });
-    expect(await openExchanges()).toEqual({ available: true, total: 3, byReason: [{ reason: 'too-soft', count: 2 }, { reason: 'too-stiff', count: 1 }] });
   });
 
   it.each([

@@ -8,7 +8,7 @@ import { dashboardFor } from './dashboard.service';
 export function staffDashboardRoutes(): Router {
   const r = Router();
   r.use(requireRole('staff', 'admin'));
-  r.get('/', endpoint({ summary: 'Orders, revenue, best sellers, recommendation conversion and low stock over a range of days', query: DashboardQueryDto }, async ({ query }, _req, res) => {
+  r.get('/', endpoint({ summary: 'Orders, revenue, best sellers and recommendation conversion over a range of days; open exchanges and low stock now', query: DashboardQueryDto }, async ({ query }, _req, res) => {
     res.json(await dashboardFor(query));
   }));
   return r;

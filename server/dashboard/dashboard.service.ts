@@ -1,9 +1,10 @@
-import { maxDashboardDays, type DashboardDayDto, type DashboardDto, type LowStockDto, type RecommendationShareDto, type TopSpringDto } from '../../shared/admin/dashboard';
+import { maxDashboardDays, type DashboardDayDto, type DashboardDto, type LowStockDto, type OpenExchangesDto, type RecommendationShareDto, type TopSpringDto } from '../../shared/admin/dashboard';
 import type { DashboardQueryDto } from '../../shared/admin/dashboard.dto';
+import { exchangeReasons, openExchangeStates } from '../../shared/exchange-status';
 import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
+import { countExchangesByStateAndReason } from '../exchanges/exchange-staff.service';
 import { getShopSettings } from '../shop/shop-settings.service';
-import { openExchanges } from './open-exchanges';
 
 // Every figure counts orders by the UTC day they were paid (paid_at), whatever happened to them afterwards:
 // revenue is the gross total charged (goods, shipping and VAT) before any refund.
@@ -58,6 +59,13 @@ async function recommendationShare(q: DashboardQueryDto): Promise<Recommendation
   )) as { served: number; purchased: number }[];
   const { served, purchased } = row!;
   return { served, purchased, shareBasisPoints: served ? Math.round((purchased * 10_000) / served) : null };
+}
+
+/** Exchanges and returns still open now, whatever day they were asked: the work waiting, not a figure of the range. */
+async function openExchanges(): Promise<OpenExchangesDto> {
+  const counts = await countExchangesByStateAndReason([...openExchangeStates]);
+  const byReason = exchangeReasons.map((reason) => ({ reason, count: counts.filter((c) => c.reason === reason).reduce((n, c) => n + c.count, 0) }));
+  return { total: byReason.reduce((n, r) => n + r.count, 0), byReason };
 }
 
 async function lowStock(threshold: number): Promise<LowStockDto[]> {

@@ -1,17 +1,11 @@
-import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
 import type { ExchangeReplacementDto, ExchangeSagCheckDto } from '../../shared/commerce/exchange.dto';
 import type { ExchangeKind, ExchangeReason, ExchangeState, Settlement } from '../../shared/exchange-status';
+import { PaidRecordColumns } from '../orders/paid-record-columns';
 
 /** A rider's request to swap a bought spring for another rate, or to send it back for the money. */
 @Entity({ name: 'exchanges' })
-export class Exchange {
-  @PrimaryGeneratedColumn('uuid')
-  id!: string;
-
-  // Given by the database from its own sequence (EX-1001, …).
-  @Column({ type: 'varchar', length: 20, insert: false, update: false })
-  number!: string;
-
+export class Exchange extends PaidRecordColumns {
   @Column({ type: 'varchar', length: 10 })
   kind!: ExchangeKind;
 
@@ -29,9 +23,6 @@ export class Exchange {
 
   @Column({ name: 'user_id', type: 'uuid' })
   userId!: string;
-
-  @Column({ type: 'varchar', length: 254 })
-  email!: string;
 
   @Column({ name: 'product_id', type: 'uuid', nullable: true })
   productId!: string | null;
@@ -67,15 +58,6 @@ export class Exchange {
   @Column({ name: 'decided_by', type: 'uuid', nullable: true })
   decidedBy!: string | null;
 
-  @Column({ name: 'payment_session_id', type: 'varchar', length: 255, nullable: true })
-  paymentSessionId!: string | null;
-
-  @Column({ name: 'payment_url', type: 'text', nullable: true })
-  paymentUrl!: string | null;
-
-  @Column({ name: 'payment_intent_id', type: 'varchar', length: 255, nullable: true })
-  paymentIntentId!: string | null;
-
   @Column({ name: 'refund_id', type: 'uuid', nullable: true })
   refundId!: string | null;
 
@@ -84,12 +66,6 @@ export class Exchange {
 
   @Column({ name: 'tracking_number', type: 'varchar', length: 80, nullable: true })
   trackingNumber!: string | null;
-
-  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
-  createdAt!: Date;
-
-  @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' })
-  updatedAt!: Date;
 
   @Column({ name: 'decided_at', type: 'timestamptz', nullable: true })
   decidedAt!: Date | null;
@@ -100,6 +76,4 @@ export class Exchange {
   @Column({ name: 'settled_at', type: 'timestamptz', nullable: true })
   settledAt!: Date | null;
 
-  @Column({ name: 'shipped_at', type: 'timestamptz', nullable: true })
-  shippedAt!: Date | null;
 }

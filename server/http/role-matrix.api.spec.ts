@@ -21,6 +21,7 @@ const matrix: Record<string, Access> = {
   'POST /api/calculations/spring-geometry': 'public',
   'POST /api/calculations/sag-check': 'public',
   'POST /api/recommendations': 'public',
+  'POST /api/recommendations/shown': 'public',
   'GET /api/recommendations/bikes/:fitmentId': 'public',
   'GET /api/health': 'public',
   'POST /api/auth/register': 'public',

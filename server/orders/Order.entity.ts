@@ -1,26 +1,17 @@
-import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
 import type { CurrencyCode } from '../../shared/money';
 import type { CancelReason, FulfilmentStatus, OrderStatus, PaymentStatus } from '../../shared/order-status';
 import type { ShippingAddressDto } from '../../shared/commerce/checkout.dto';
+import { PaidRecordColumns } from './paid-record-columns';
 
 /** An order: three separate states, the totals it was sold at, the payment it waits for, and when each milestone came. */
 @Entity({ name: 'orders' })
-export class Order {
-  @PrimaryGeneratedColumn('uuid')
-  id!: string;
-
-  // Given by the database from its own sequence (LL-1001, LL-1002, …).
-  @Column({ type: 'varchar', length: 20, insert: false, update: false })
-  number!: string;
-
+export class Order extends PaidRecordColumns {
   @Column({ name: 'user_id', type: 'uuid', nullable: true })
   userId!: string | null;
 
   @Column({ name: 'cart_id', type: 'uuid', nullable: true })
   cartId!: string | null;
-
-  @Column({ type: 'varchar', length: 254 })
-  email!: string;
 
   @Column({ name: 'customer_name', type: 'varchar', length: 120 })
   customerName!: string;
@@ -61,15 +52,6 @@ export class Order {
   @Column({ name: 'refunded_cents', type: 'int', default: 0 })
   refundedCents!: number;
 
-  @Column({ name: 'payment_session_id', type: 'varchar', length: 255, nullable: true })
-  paymentSessionId!: string | null;
-
-  @Column({ name: 'payment_url', type: 'text', nullable: true })
-  paymentUrl!: string | null;
-
-  @Column({ name: 'payment_intent_id', type: 'varchar', length: 255, nullable: true })
-  paymentIntentId!: string | null;
-
   @Column({ name: 'payment_failure', type: 'text', nullable: true })
   paymentFailure!: string | null;
 
@@ -82,12 +64,6 @@ export class Order {
 
   @Column({ name: 'packed_by', type: 'uuid', nullable: true })
   packedBy!: string | null;
-
-  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
-  createdAt!: Date;
-
-  @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' })
-  updatedAt!: Date;
 
   @Column({ name: 'paid_at', type: 'timestamptz', nullable: true })
   paidAt!: Date | null;
@@ -106,9 +82,6 @@ export class Order {
 
   @Column({ name: 'packed_at', type: 'timestamptz', nullable: true })
   packedAt!: Date | null;
-
-  @Column({ name: 'shipped_at', type: 'timestamptz', nullable: true })
-  shippedAt!: Date | null;
 
   @Column({ name: 'delivered_at', type: 'timestamptz', nullable: true })
   deliveredAt!: Date | null;

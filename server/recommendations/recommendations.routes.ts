@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { RecommendationRequestDto } from '../../shared/catalogue';
+import { RecommendationRequestDto, RecommendationShownDto } from '../../shared/catalogue';
 import type { Config } from '../config';
 import { limiter } from '../http/rate-limit';
 import { endpoint } from '../http/endpoint';
@@ -14,6 +14,12 @@ export function recommendationRoutes(config: Config): Router {
   r.post('/', endpoint({ summary: 'Catalogue springs for a bike, a rider and a load, best first', body: RecommendationRequestDto }, async ({ body }, _req, res) => {
     res.json(await recommend(body, cache));
     countRecommendationServed();
+  }));
+  // The finder works answers out in the browser; it reports each load's answer once shown, so the dashboard's share counts what riders saw.
+  r.post('/shown', endpoint({ summary: 'Counts an answer the finder worked out in the browser and showed, for the dashboard', body: RecommendationShownDto, status: 204, reply: 'none' }, async ({ body }, _req, res) => {
+    await bikeForRecommendation(body.fitmentId, cache);
+    countRecommendationServed();
+    res.status(204).end();
   }));
   // The finder fetches this once per bike and runs the same rule in the browser as the rider types.
   r.get('/bikes/:fitmentId', endpoint({ summary: 'A bike and the springs that fit it: what the finder needs to run the recommendation in the browser', ids: { fitmentId: 'The bike' } }, async ({ ids }, _req, res) => {

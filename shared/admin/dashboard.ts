@@ -1,3 +1,4 @@
+import type { ExchangeReason } from '../exchange-status';
 import type { CurrencyCode } from '../money';
 
 /** The longest range the dashboard sums over in one request. */
@@ -27,13 +28,10 @@ export interface RecommendationShareDto {
   shareBasisPoints: number | null;
 }
 
-export const exchangeReasons = ['too-soft', 'too-stiff', 'other'] as const;
-export type ExchangeReason = (typeof exchangeReasons)[number];
-
+/** Exchanges and returns not yet finished (requested, approved, or received and waiting for the replacement), whenever asked. */
 export interface OpenExchangesDto {
-  /** False while no exchange records exist in this build: the figures are then zero, not measured. */
-  available: boolean;
   total: number;
+  /** Every reason, in the order of `exchangeReasons`, zero included. */
   byReason: { reason: ExchangeReason; count: number }[];
 }
 

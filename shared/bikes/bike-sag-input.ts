@@ -1,5 +1,5 @@
 import type { FitmentDto } from '../catalogue/fitment.dto';
-import type { EndTargetsDto } from '../catalogue/recommendation.dto';
+import type { EndTargetsDto, RecommendationDto } from '../catalogue/recommendation.dto';
 import type { SagCheckInput, SagReading } from '../engine/types';
 
 export interface SagReadings {
@@ -9,17 +9,27 @@ export interface SagReadings {
   riderMm: SagReading;
 }
 
-/** What a sag check needs of the bike's load: the targets the finder used and the wheel loads it placed. */
+type SagTargetsOfEnd = Pick<EndTargetsDto, 'staticSagMm' | 'riderSagMm'> & Partial<Pick<EndTargetsDto, 'staticSagToleranceMm'>>;
+
+/**
+ * What a sag check needs of the bike's load: the targets the finder used and the wheel loads it placed. Without the
+ * wheel loads (no load entered) the check works from the readings alone; without a tolerance the engine's own applies.
+ */
 export interface SagLoadContext {
-  targets: { fork: EndTargetsDto; shock: EndTargetsDto };
-  fork: { bikeLoadN: number; frontLoadN: number };
-  shock: { bikeLoadN: number; rearLoadN: number };
+  targets: { fork: SagTargetsOfEnd; shock: SagTargetsOfEnd };
+  fork?: { bikeLoadN: number; frontLoadN: number };
+  shock?: { bikeLoadN: number; rearLoadN: number };
 }
 
-type BikeFigures = Pick<
-  FitmentDto,
-  'rearLeverageRatio' | 'rearLeverageCurve' | 'rearAdjusterPitchMm' | 'shockCount' | 'forkAngleDeg' | 'forkAdjusterPitchMm' | 'forkSpringCount'
->;
+/** The load context of a recommendation: its targets and, outside the load-cases shape, the wheel loads it placed. */
+export function sagLoadOf(r: Pick<RecommendationDto, 'targets' | 'fork' | 'shock'>): SagLoadContext {
+  return { targets: r.targets, ...('frontLoadN' in r.fork ? { fork: r.fork } : {}), ...('rearLoadN' in r.shock ? { shock: r.shock } : {}) };
+}
+
+/** The bike's figures a sag check reads; an adjuster pitch may be unknown. */
+export type BikeFigures = Pick<FitmentDto, 'rearLeverageRatio' | 'rearLeverageCurve' | 'shockCount' | 'forkAngleDeg' | 'forkAdjusterPitchMm' | 'forkSpringCount'> & {
+  rearAdjusterPitchMm: number | null;
+};
 
 /**
  * The sag-check input for a known bike and load: the bike's own figures, the finder's targets and tolerance, and both
@@ -33,7 +43,7 @@ export function sagCheckInputForBike(bike: BikeFigures, load: SagLoadContext, r:
     staticMm: r.staticMm,
     riderMm: r.riderMm,
     targets: { staticSagMm: t.staticSagMm, riderSagMm: t.riderSagMm },
-    toleranceMm: t.staticSagToleranceMm,
+    ...(t.staticSagToleranceMm === undefined ? {} : { toleranceMm: t.staticSagToleranceMm }),
   };
   if (r.end === 'front') {
     return {
@@ -42,8 +52,7 @@ export function sagCheckInputForBike(bike: BikeFigures, load: SagLoadContext, r:
       forkAngleDeg: bike.forkAngleDeg,
       springCount: bike.forkSpringCount,
       ...(bike.forkAdjusterPitchMm === null ? {} : { adjusterPitchMm: bike.forkAdjusterPitchMm }),
-      bikeLoadN: load.fork.bikeLoadN,
-      riderLoadN: load.fork.frontLoadN,
+      ...(load.fork ? { bikeLoadN: load.fork.bikeLoadN, riderLoadN: load.fork.frontLoadN } : {}),
     };
   }
   const leverageRatio = bike.rearLeverageCurve?.length ? bike.rearLeverageCurve : (bike.rearLeverageRatio ?? undefined);
@@ -51,10 +60,9 @@ export function sagCheckInputForBike(bike: BikeFigures, load: SagLoadContext, r:
     ...common,
     end: 'rear',
     ...(leverageRatio === undefined ? {} : { leverageRatio }),
-    adjusterPitchMm: bike.rearAdjusterPitchMm,
+    ...(bike.rearAdjusterPitchMm === null ? {} : { adjusterPitchMm: bike.rearAdjusterPitchMm }),
     shockCount: bike.shockCount,
-    bikeLoadN: load.shock.bikeLoadN,
-    riderLoadN: load.shock.rearLoadN,
+    ...(load.shock ? { bikeLoadN: load.shock.bikeLoadN, riderLoadN: load.shock.rearLoadN } : {}),
   };
 }
 

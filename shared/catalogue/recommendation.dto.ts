@@ -74,6 +74,12 @@ export class LoadCaseInputDto extends LoadSetInputDto {
   name!: string;
 }
 
+/** POST /api/recommendations/shown body: the finder showed a rider an answer it worked out in the browser for this bike. */
+export class RecommendationShownDto {
+  @IsUUID('all', { message: 'Choose a bike.' })
+  fitmentId!: string;
+}
+
 /**
  * POST /api/recommendations body. With `cases`, the top-level load is evaluated as a case named
  * "as entered" followed by the given cases, and `fork`/`shock` come in the cases shape.

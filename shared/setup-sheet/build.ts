@@ -1,41 +1,37 @@
-import type { CurrencyCode, LuggageStation, RidingStyle, SpringEnd } from '../catalogue/constants';
+import type { LuggageStation, SpringEnd } from '../catalogue/constants';
 import { quantityWords, saleUnits, unitsToBuy } from '../catalogue/sale-unit';
 import { formatMoney } from '../money-format';
 import { mmToIn, nmToFtLbf, rateInUnits } from '../units';
 import type { SetupSheetDto, SetupSheetEndDto, SheetRowDto, SheetTorqueDto } from './setup-sheet.dto';
 
-/** One end's figures as the engine gave them (now, or when the order was placed). */
-export interface EndFigures {
-  end: SpringEnd;
-  productId: string;
-  sku: string;
-  name: string;
-  springCount: number;
-  rateNPerMm: number;
-  freeLengthMm: number | null;
-  preloadMm: number;
-  adjusterTurns: number | null;
-  spacerLengthMm: number | null;
-  installedLengthMm: number | null;
-  staticSagMm: number;
-  riderSagMm: number;
-  toleranceMm: number;
-  targets: { staticSagMm: number; riderSagMm: number };
-  unitPriceCents: number | null;
-  currency: CurrencyCode;
-  adapters: { sku: string; name: string; quantity: number }[];
-}
+/** One end's figures as the engine gave them (now, or when the order was placed): the sheet's own fields, the rate in N/mm. */
+export type EndFigures = Pick<
+  SetupSheetEndDto,
+  | 'end'
+  | 'productId'
+  | 'sku'
+  | 'name'
+  | 'springCount'
+  | 'freeLengthMm'
+  | 'preloadMm'
+  | 'adjusterTurns'
+  | 'spacerLengthMm'
+  | 'installedLengthMm'
+  | 'staticSagMm'
+  | 'riderSagMm'
+  | 'toleranceMm'
+  | 'targets'
+  | 'unitPriceCents'
+  | 'currency'
+  | 'adapters'
+> & { rateNPerMm: number };
 
-export interface SheetInput {
-  source: 'plan' | 'order';
-  orderNumber: string | null;
-  bikeLabel: string;
-  ridingStyle: RidingStyle;
+export type SheetInput = Pick<SetupSheetDto, 'source' | 'orderNumber' | 'bikeLabel' | 'ridingStyle'> & {
   loads: { station: string; massKg: number }[];
   ends: EndFigures[];
   /** The bike's torques, tools and notes; absent when the bike has left the catalogue. */
-  bike: { torques: { fastener: string; torqueNm: number }[]; tools: string[]; notes: string } | null;
-}
+  bike: { torques: Pick<SheetTorqueDto, 'fastener' | 'torqueNm'>[]; tools: string[]; notes: string } | null;
+};
 
 const formats = new Map<number, Intl.NumberFormat>();
 /** en-GB, at most `d` decimals: the one way the sheet writes a number, on the page and in the PDF. */

@@ -26,6 +26,8 @@ export const shopApi = {
   /** The bike's fitment and fitting springs with adapters: the finder runs the shared rule on them in the browser. */
   bike: (fitmentId: string) => api.get<BikeForRecommendationDto>(`/recommendations/bikes/${encodeURIComponent(fitmentId)}`),
   recommend: (body: RecommendationRequest) => api.post<RecommendationDto>('/recommendations', body),
+  /** Counts an answer the finder worked out in the browser and showed (the dashboard's recommendations served). */
+  shown: (fitmentId: string) => api.post<void>('/recommendations/shown', { fitmentId }),
 };
 
 /** The flat setup-sheet query: the same names the server's SetupSheetQueryDto reads. */

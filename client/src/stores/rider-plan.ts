@@ -7,6 +7,7 @@ import { riderRanges } from '@shared/catalogue/ranges';
 import type { EngineInputs } from '@shared/recommend/engine-input';
 import { recommendationInput, recommendFor, RecommendationProblem, type BikeForRecommendationDto } from '@shared/recommend/recommend';
 import { shopApi, type RecommendationRequest } from '../api/shop';
+import { createShownBeacon } from '../shown-beacon';
 
 export type { LuggageStation };
 const key = 'loadline.plan';
@@ -166,9 +167,22 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
       return null;
     }
   });
+  // Each load's answer shown is counted once for the dashboard, whether the browser or the server worked it out.
+  const beacon = createShownBeacon((fitmentId) => shopApi.shown(fitmentId));
+  const loadKey = (body: RecommendationRequest) => JSON.stringify(body);
   watch(live, (a) => {
-    if (a.result) setResult(a.result);
+    if (!a.result) return;
+    setResult(a.result);
+    const body = requestBody();
+    if (body) beacon.shown(loadKey(body), body.fitmentId);
   });
+
+  /** The server's answer for a load (it counted it itself). */
+  async function recommendOnServer(body: RecommendationRequest): Promise<RecommendationDto> {
+    const r = await shopApi.recommend(body);
+    beacon.servedByServer(loadKey(body));
+    return r;
+  }
 
   async function loadBike(id: string): Promise<void> {
     if (bike.value?.fitment.id === id) return;
@@ -182,7 +196,7 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
     if (fitment.value?.id !== plan.value.fitmentId) fitment.value = await shopApi.fitment(plan.value.fitmentId);
     await loadBike(plan.value.fitmentId);
     const body = requestBody();
-    if (!result.value && body && body.rider.massKg !== null) setResult(await shopApi.recommend(body));
+    if (!result.value && body && body.rider.massKg !== null) setResult(await recommendOnServer(body));
   }
 
   function chooseBike(f: FitmentDto | null) {
@@ -216,6 +230,9 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
     requestBody,
     restore,
     setResult,
+    recommendOnServer,
+    /** Reports the answer on screen now: the rider acts on it, or leaves. */
+    reportShown: () => beacon.flush(),
     chooseBike,
   };
 });
