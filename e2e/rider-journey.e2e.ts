@@ -114,7 +114,9 @@ test('a new rider finds springs for a loaded demo bike, reads them in lb, covers
   const add = page.getByRole('button', { name: /^Add .* to the cart$/ }).first();
   const stiffer = (await add.innerText()).replace(/^Add (.*) to the cart$/, '$1').trim();
   await add.click();
-  await page.getByRole('link', { name: 'Go to the cart' }).click();
+  // The cart drawer opens with the spring in it; its page lists it too.
+  await expect(page.getByRole('dialog', { name: 'Your cart' })).toContainText(stiffer);
+  await page.getByRole('dialog', { name: 'Your cart' }).getByRole('button', { name: 'View cart' }).click();
   await expect(page.getByRole('heading', { name: 'Your cart', level: 1 })).toBeVisible();
   await expect(page.getByRole('main')).toContainText(stiffer);
 
