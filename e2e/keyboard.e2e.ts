@@ -127,7 +127,14 @@ test('a rider finds springs, fills the cart, changes a quantity and reaches the 
   await expectFocusShown(page);
   await page.keyboard.press('Enter');
   await expect(page.getByRole('heading', { name: 'Pay for your order' })).toBeVisible({ timeout: 20_000 });
-  // The payment page is reached; paying is shop-checkout.e2e.ts's journey, so this order stays unpaid and its hold expires.
+  // Paying is shop-checkout.e2e.ts's journey: here the rider goes back to the shop from the payment page.
+  await tabTo(page, page.getByRole('link', { name: 'Cancel and go back to the shop' }), { max: 20 });
+  await page.keyboard.press('Enter');
+  await expect(page.getByText('You left the payment page without paying.')).toBeVisible({ timeout: 20_000 });
+  // Tidy-up, not part of the journey: the unpaid order is cancelled so its stock hold ends now and the demo data stays as it was.
+  const back = new URL(page.url());
+  const cancelled = await page.request.post(`/api/orders/${back.searchParams.get('order')}/cancel?token=${encodeURIComponent(back.searchParams.get('token') ?? '')}`);
+  expect(cancelled.ok()).toBe(true);
 });
 
 test('at phone width the header folds its links behind a menu button that opens, closes on Escape and gives the focus back', async ({ page }) => {
