@@ -112,6 +112,12 @@ test('a rider finds springs, fills the cart, changes a quantity and reaches the 
   await page.keyboard.press('Enter');
   await expect(page.getByRole('heading', { name: 'Check out', level: 1 })).toBeVisible();
 
+  // Sent empty, the form takes the focus to the first field to mend.
+  await tabTo(page, page.getByRole('button', { name: 'Continue to payment' }));
+  await page.keyboard.press('Enter');
+  await expect(page.getByLabel('E-mail', { exact: true })).toBeFocused();
+  await expect(page.getByLabel('E-mail', { exact: true })).toHaveAttribute('aria-invalid', 'true');
+
   // The address typed field by field.
   for (const [label, value] of [
     ['E-mail', `keys-${Date.now()}@example.test`],
