@@ -143,7 +143,7 @@ test('a rider finds springs, fills the cart, changes a quantity and reaches the 
   expect(cancelled.ok()).toBe(true);
 });
 
-test('at phone width the header folds its links behind a menu button that opens, closes on Escape and gives the focus back', async ({ page }) => {
+test('at phone width the header folds its links behind a menu button that opens, closes on Escape and gives the focus back', async ({ page }, testInfo) => {
   await page.setViewportSize({ width: 390, height: 844 });
   await page.goto('/');
   const banner = page.getByRole('banner');
@@ -162,6 +162,7 @@ test('at phone width the header folds its links behind a menu button that opens,
   await expect(nav.getByRole('link', { name: 'Find springs' })).toBeVisible();
   await expect(banner.getByRole('link', { name: 'Sign in' })).toBeVisible();
   expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await testInfo.attach('header menu open 390×844', { body: await page.screenshot({ animations: 'disabled' }), contentType: 'image/png' });
   // The next Tab goes into the menu just opened.
   await page.keyboard.press('Tab');
   expect(await focused(nav)).toBe(true);
