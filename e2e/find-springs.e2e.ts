@@ -51,4 +51,6 @@ test('a rider leaving the rider mass empty is told which field to fill', async (
   await finder.chooseBike('Corvane', 'Strada 650', /2017–2020/);
   await finder.workOut();
   await expect(page.locator('#rider-mass-error')).toBeVisible();
+  // The focus goes to the field to mend, so a keyboard or screen-reader user lands on it.
+  await expect(page.getByLabel('Rider', { exact: true })).toBeFocused();
 });

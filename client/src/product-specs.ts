@@ -1,7 +1,8 @@
 import type { ProductKind, SpringEnd } from '@shared/catalogue/constants';
 import type { SpringDetailsDto } from '@shared/catalogue/product.dto';
 import { saleUnits } from '@shared/catalogue/sale-unit';
-import { mmToIn, nPerMmToKgfPerMm, nPerMmToLbfPerIn } from '@shared/units';
+import { formatInches, formatLength } from '@shared/length-format';
+import { nPerMmToKgfPerMm, nPerMmToLbfPerIn } from '@shared/units';
 import { formatNumber } from './format';
 
 /** One specification in both unit systems, as the product page's table shows it. */
@@ -11,7 +12,7 @@ export interface SpecRow {
   imperial: string;
 }
 
-const length = (label: string, mm: number): SpecRow => ({ label, metric: `${formatNumber(mm, 1)} mm`, imperial: `${formatNumber(mmToIn(mm), 2)} in` });
+const length = (label: string, mm: number): SpecRow => ({ label, metric: formatLength(mm, 'metric', { gap: ' ' }), imperial: formatInches(mm, { gap: ' ' }) });
 
 /** A spring's figures in SI and in the units riders also quote (kgf/mm, lbf/in, in), all through shared/units (mathjs). */
 export function springSpecRows(s: SpringDetailsDto): SpecRow[] {

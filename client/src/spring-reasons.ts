@@ -1,8 +1,7 @@
 import type { SpringCandidateResult, SpringReason } from '@shared/engine/types';
 import { nPerMmToKgfPerMm, nPerMmToLbfPerIn } from '@shared/units';
-import { formatNumber, formatQuantity } from './format';
-
-const mm = (v: number) => formatQuantity(v, 'mm', 1);
+import { formatLength, type UnitSystem } from '@shared/length-format';
+import { formatNumber } from './format';
 
 export interface StaticTarget {
   staticSagMm: number;
@@ -13,8 +12,9 @@ export interface StaticTarget {
 type Judged = Pick<SpringCandidateResult, 'reason' | 'preloadNeededMm' | 'preloadRangeMm' | 'staticSagMm' | 'riderSagMm' | 'coilBindMarginMm'>;
 
 /** Our own words for why a spring got its verdict, with the figures behind it, so colour is never the only carrier. */
-export function reasonInWords(c: Judged, t: StaticTarget): string {
-  const target = `target ${mm(t.staticSagMm)} ± ${formatNumber(t.staticSagToleranceMm, 1)}`;
+export function reasonInWords(c: Judged, t: StaticTarget, system: UnitSystem = 'metric'): string {
+  const mm = (v: number) => formatLength(v, system);
+  const target = `target ${mm(t.staticSagMm)} ± ${system === 'metric' ? formatNumber(t.staticSagToleranceMm, 1) : mm(t.staticSagToleranceMm)}`;
   const words: Record<SpringReason, () => string> = {
     'on-target': () => `Sits ${mm(c.staticSagMm)} down on its own weight (${target}) and ${mm(c.riderSagMm)} with you aboard.`,
     'preload-above-range': () => `Needs ${mm(c.preloadNeededMm)} of preload to hold your sag; the adjuster gives at most ${mm(c.preloadRangeMm.max)}.`,

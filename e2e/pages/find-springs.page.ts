@@ -31,6 +31,11 @@ export class FindSpringsPage {
     if (load.topCaseKg !== undefined) await this.page.getByLabel('Top case').fill(String(load.topCaseKg));
   }
 
+  /** The finder's kg / lb switch; lengths follow it (mm, or inches with mm beside them). */
+  async useUnits(unit: 'kg' | 'lb') {
+    await this.page.getByRole('radio', { name: unit, exact: true }).or(this.page.getByRole('button', { name: unit, exact: true })).first().click();
+  }
+
   async workOut() {
     await this.page.getByRole('button', { name: 'Work out my springs' }).click();
   }

@@ -58,6 +58,6 @@ export {
   type SpringMaterial,
   type SpringMaterialKey,
 } from './geometry';
-export { checkSag, averageReading, DEFAULT_SAG_TOLERANCE_MM } from './sag';
+export { checkSag, averageReading, DEFAULT_SAG_TOLERANCE_MM, sagAdviceText, type LengthText } from './sag';
 export { catalogueSolidStress, checkSolidStress, minTensileStrength, TENSILE_STRENGTH_BANDS, ALLOWABLE_SHARE_SET_REMOVED, type SolidStressCheck } from './spring-strength';
 export { rearSagSweep, forkSagSweep, loadSteps, type SagCurve, type SagCurvePoint } from './sweep';

@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { createLeverageCurve, shockTravelAt, solveShockEquilibrium } from './leverage';
-import { averageReading, checkSag } from './sag';
+import { unit } from 'mathjs';
+import { formatLength } from '../length-format';
+import { averageReading, checkSag, sagAdviceText } from './sag';
 import type { SagCheckInput } from './types';
 
 const rear: SagCheckInput = {
@@ -30,6 +32,15 @@ describe('sag check after fitting', () => {
     expect(r.springVerdict).toBe('too-soft');
     expect(r.advice).toMatch(/^Add 2\.5 mm of preload \(about 2\.5 turns of the adjuster\)/);
     expect(r.advice).toMatch(/too soft/);
+  });
+
+  it('an lb rider reads the same advice with each length in inches first (shared/length-format), the mm beside them as the sentence gives them', () => {
+    const { advice, ...r } = checkSag(rear);
+    expect(sagAdviceText(r, rear.targets, 3)).toBe(advice);
+    const inches = sagAdviceText(r, rear.targets, 3, (mm) => formatLength(mm, 'imperial'));
+    // 2.5 mm of preload is 0.098 in (mathjs; 1 in = 25.4 mm exactly), shown as 0.1 in.
+    expect(inches).toMatch(new RegExp(`^Add ${Number(unit(2.5, 'mm').toNumber('in').toFixed(2))}\u202fin \\(2\\.5\u202fmm\\) of preload`));
+    expect(inches.replace(/[\d.]+\u202fin \(([\d.]+)\u202fmm\)/g, '$1 mm')).toBe(advice);
   });
 
   it('when rider sag is too shallow, advises removing preload', () => {

@@ -14,7 +14,9 @@ export function averageReading(reading: SagReading): number {
 }
 
 // Formats numbers for the advice sentence only; numeric fields stay raw.
-const mm = (x: number): string => `${Math.round(x * 10) / 10} mm`;
+const mmText = (x: number): string => `${Math.round(x * 10) / 10} mm`;
+/** How the advice writes a length; an lb rider's page passes inches with mm beside them. */
+export type LengthText = (mm: number) => string;
 
 function turnsPhrase(turns: number): string {
   const half = Math.round(Math.abs(turns) * 2) / 2;
@@ -22,17 +24,21 @@ function turnsPhrase(turns: number): string {
   return `about ${half} ${half === 1 ? 'turn' : 'turns'} of the adjuster`;
 }
 
-const springWords: Record<string, (r: Omit<SagCheckResult, 'advice'>, targets: SagTargets) => string> = {
-  'static-sag-low': (r, t) =>
+const springWords: Record<string, (r: Omit<SagCheckResult, 'advice'>, targets: SagTargets, mm: LengthText) => string> = {
+  'static-sag-low': (r, t, mm) =>
     `static sag would be only ${mm(r.predictedStaticSagMm ?? 0)} against a ${mm(t.staticSagMm)} target, so the spring is too soft and a stiffer one is advised`,
-  'static-sag-high': (r, t) =>
+  'static-sag-high': (r, t, mm) =>
     `static sag would be ${mm(r.predictedStaticSagMm ?? 0)} against a ${mm(t.staticSagMm)} target, so the spring is too stiff and a softer one is advised`,
   'topped-out': () => 'the bike would sit topped out on its own weight, so the spring is too soft and a stiffer one is advised',
   'does-not-settle': () => 'the bike would sink past the rider-sag target on this linkage, so the spring is too soft and a stiffer one is advised',
 };
 
-function adviceSentence(r: Omit<SagCheckResult, 'advice'>, targets: SagTargets, toleranceMm: number): string {
-  const spring = r.springVerdict === 'ok' || r.springReason === undefined ? '' : (springWords[r.springReason]?.(r, targets) ?? '');
+/**
+ * The advice sentence for a check's figures; the result's own `advice` is this with lengths in mm.
+ * @example sagAdviceText(result, { staticSagMm: 25, riderSagMm: 66 }, 3, (mm) => `${mm / 25.4} in`)
+ */
+export function sagAdviceText(r: Omit<SagCheckResult, 'advice'>, targets: SagTargets, toleranceMm: number, mm: LengthText = mmText): string {
+  const spring = r.springVerdict === 'ok' || r.springReason === undefined ? '' : (springWords[r.springReason]?.(r, targets, mm) ?? '');
   const tail = [r.warning, r.approximate ? APPROXIMATE_NOTE : undefined].filter((x) => x !== undefined).map((x) => ` ${x}`).join('');
   if (r.preloadChangeMm === 0) {
     const onTarget = `Rider sag is ${mm(r.riderSagMm)}, within ${mm(toleranceMm)} of the ${mm(targets.riderSagMm)} target`;
@@ -173,5 +179,5 @@ export function checkSag(input: SagCheckInput): SagCheckResult {
   }
   if (est.impliedRateNPerMm !== undefined) result.impliedRateNPerMm = est.impliedRateNPerMm;
   if (est.impliedPreloadMm !== undefined) result.impliedPreloadMm = est.impliedPreloadMm;
-  return { ...result, advice: adviceSentence(result, targets, toleranceMm) };
+  return { ...result, advice: sagAdviceText(result, targets, toleranceMm) };
 }

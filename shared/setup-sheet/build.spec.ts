@@ -26,6 +26,14 @@ describe('setup sheet wording', () => {
     expect(row('price')).toBe('€157.50 per pair');
     expect(row('static-sag')).toBe('29.6 mm ± 3 mm (target 30 mm)');
   });
+  it('an lb rider reads each length in inches first, with the mm figure the sheet prints in brackets (1 in = 25.4 mm exactly)', () => {
+    const imperial = (key: string) => sheet.ends[0]!.rows.find((r) => r.key === key)?.imperialValue;
+    // 12.5 mm ÷ 25.4 = 0.492 in; 85 mm = 3.346 in; 29.6 mm = 1.165 in, 3 mm = 0.118 in, 30 mm = 1.181 in.
+    expect(imperial('preload')).toBe('0.49 in (12.5 mm)');
+    expect(imperial('spacer')).toBe('cut to 3.35 in (85 mm)');
+    expect(imperial('static-sag')).toBe('1.17 in ± 0.12 in, target 1.18 in (29.6 mm ± 3 mm, target 30 mm)');
+    expect(row('preload')).toBe('12.5 mm (0.49 in)');
+  });
   it('carries the cautions and the steps a spring change disturbs', () => {
     expect(sheet.cautions.join(' ')).toMatch(/Secure the bike/);
     expect(sheet.cautions.join(' ')).toMatch(/store energy/);

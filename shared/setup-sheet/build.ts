@@ -1,7 +1,8 @@
 import type { LuggageStation, SpringEnd } from '../catalogue/constants';
 import { quantityWords, saleUnits, unitsToBuy } from '../catalogue/sale-unit';
 import { formatMoney } from '../money-format';
-import { mmToIn, nmToFtLbf, rateInUnits } from '../units';
+import { formatInches, formatLength } from '../length-format';
+import { nmToFtLbf, rateInUnits } from '../units';
 import type { SetupSheetDto, SetupSheetEndDto, SheetRowDto, SheetTorqueDto } from './setup-sheet.dto';
 
 /** One end's figures as the engine gave them (now, or when the order was placed): the sheet's own fields, the rate in N/mm. */
@@ -40,7 +41,10 @@ export function sheetNumber(v: number, d: number): string {
   if (!f) formats.set(d, (f = new Intl.NumberFormat('en-GB', { maximumFractionDigits: d })));
   return f.format(v);
 }
-const mm = (v: number, d = 1) => `${sheetNumber(v, d)} mm (${sheetNumber(mmToIn(v), 2)} in)`;
+// Sheets print lengths mm first with inches beside them; an lb rider's page reads inches first (shared/length-format).
+const mm = (v: number, d = 1) => formatLength(v, 'both', { mmDecimals: d, gap: ' ' });
+const inFirst = (v: number, d = 1) => formatLength(v, 'imperial', { mmDecimals: d, gap: ' ' });
+const inOnly = (v: number) => formatInches(v, { gap: ' ' });
 const kg = (v: number) => `${sheetNumber(v, 1)} kg`;
 
 /** "45 N·m (33.2 ft·lbf)", ft·lbf through mathjs. */
@@ -100,16 +104,20 @@ function endRows(e: EndFigures, units: number): SheetRowDto[] {
     { key: 'springs', label: 'Springs', value: `${quantityWords(e.end, units)}: ${e.name} (${e.sku})` },
     { key: 'rate', label: 'Rate, per spring', value: rateText(e.rateNPerMm) },
   ];
-  if (e.freeLengthMm !== null) rows.push({ key: 'free-length', label: 'Free length', value: mm(e.freeLengthMm, 1) });
-  rows.push({ key: 'preload', label: 'Preload', value: mm(e.preloadMm, 1) });
-  if (e.installedLengthMm !== null) rows.push({ key: 'installed-length', label: 'Installed length', value: mm(e.installedLengthMm, 1) });
+  if (e.freeLengthMm !== null) rows.push({ key: 'free-length', label: 'Free length', value: mm(e.freeLengthMm, 1), imperialValue: inFirst(e.freeLengthMm, 1) });
+  rows.push({ key: 'preload', label: 'Preload', value: mm(e.preloadMm, 1), imperialValue: inFirst(e.preloadMm, 1) });
+  if (e.installedLengthMm !== null) rows.push({ key: 'installed-length', label: 'Installed length', value: mm(e.installedLengthMm, 1), imperialValue: inFirst(e.installedLengthMm, 1) });
   if (e.adjusterTurns !== null) rows.push({ key: 'adjuster', label: 'Adjuster', value: `${sheetNumber(e.adjusterTurns, 1)} turns from fully out` });
-  else if (e.spacerLengthMm !== null) rows.push({ key: 'spacer', label: 'Preload spacer', value: `cut to ${mm(e.spacerLengthMm, 1)}` });
+  else if (e.spacerLengthMm !== null) rows.push({ key: 'spacer', label: 'Preload spacer', value: `cut to ${mm(e.spacerLengthMm, 1)}`, imperialValue: `cut to ${inFirst(e.spacerLengthMm, 1)}` });
   else if (e.end === 'fork') rows.push({ key: 'spacer', label: 'Preload spacer', value: 'set the preload above with the spacer; measure it at fitting' });
   const tol = sheetNumber(e.toleranceMm, 1);
+  const sag = (mmNow: number, target: number) => ({
+    value: `${sheetNumber(mmNow, 1)} mm ± ${tol} mm (target ${sheetNumber(target, 1)} mm)`,
+    imperialValue: `${inOnly(mmNow)} ± ${inOnly(e.toleranceMm)}, target ${inOnly(target)} (${sheetNumber(mmNow, 1)} mm ± ${tol} mm, target ${sheetNumber(target, 1)} mm)`,
+  });
   rows.push(
-    { key: 'static-sag', label: 'Static sag to expect', value: `${sheetNumber(e.staticSagMm, 1)} mm ± ${tol} mm (target ${sheetNumber(e.targets.staticSagMm, 1)} mm)` },
-    { key: 'rider-sag', label: 'Rider sag to expect', value: `${sheetNumber(e.riderSagMm, 1)} mm ± ${tol} mm (target ${sheetNumber(e.targets.riderSagMm, 1)} mm)` },
+    { key: 'static-sag', label: 'Static sag to expect', ...sag(e.staticSagMm, e.targets.staticSagMm) },
+    { key: 'rider-sag', label: 'Rider sag to expect', ...sag(e.riderSagMm, e.targets.riderSagMm) },
   );
   if (e.adapters.length) rows.push({ key: 'adapters', label: 'Adapters', value: e.adapters.map((a) => `${a.quantity} × ${a.name} (${a.sku})`).join('; ') });
   if (e.unitPriceCents !== null) rows.push({ key: 'price', label: 'Price', value: `${formatMoney(e.unitPriceCents, e.currency)} ${saleUnits[e.end].perUnit}` });

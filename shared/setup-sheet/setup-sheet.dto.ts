@@ -6,6 +6,8 @@ export interface SheetRowDto {
   key: string;
   label: string;
   value: string;
+  /** For a length: inches first with mm in brackets, as an lb rider's page shows it. */
+  imperialValue?: string;
 }
 
 /** One end's spring and how to set it up. Lengths in mm, rates in N/mm; null where the source does not say. */
