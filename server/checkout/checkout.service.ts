@@ -10,9 +10,8 @@ import { AppDataSource } from '../db/data-source';
 import { AppError } from '../errors';
 import { orderAccessToken } from '../orders/order-access';
 import { lockOrder, moveOrder } from '../orders/order-moves';
-import { outOfStock, releaseStock, reserveStock } from '../orders/order-stock';
-import { Order } from '../orders/Order.entity';
-import { OrderLine } from '../orders/OrderLine.entity';
+import { outOfStock, refuseUncoveredSale, releaseStock, saleMovesCte } from '../orders/order-stock';
+import { stockMovementCtes } from '../stock/stock-ledger';
 import { PaymentRefusedError, PaymentUnavailableError, type PaymentProvider } from '../payments/payment-provider';
 import { getShopSettings, reservationMinutesOf } from '../shop/shop-settings.service';
 import { cartTotalsFor } from '../cart/cart-pricing';
@@ -89,35 +88,36 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
 
     const replaced = found[0]!.has_pending ? await replaceEarlierOrders(em, cartId, owner.userId ?? null) : [];
     const totals = cartTotalsFor(rows.map((r) => ({ unitPriceCents: r.unit_price_cents, quantity: r.quantity })), settings);
-    // Inserted by hand so the database's own number and the reservation time come back in the same round trip.
-    const [order] = (await em.query(
-      `INSERT INTO orders (user_id, cart_id, email, customer_name, shipping_address, status, payment_status, fulfilment_status, currency,
-                           subtotal_cents, shipping_cents, vat_cents, total_cents, vat_rate_bp, reserved_until, stock_held)
-       VALUES ($1, $2, $3, $4, $5, 'pending', 'awaiting', 'unfulfilled', $6, $7, $8, $9, $10, $11, now() + make_interval(mins => $12), true)
-       RETURNING id, number, email, currency, shipping_cents AS "shippingCents", reserved_until AS "reservedUntil"`,
-      [owner.userId, cartId, dto.email.trim().toLowerCase(), dto.shippingAddress.name.trim(), JSON.stringify({ ...dto.shippingAddress }), totals.currency,
-        totals.subtotalCents, totals.shippingCents, totals.vatCents, totals.totalCents, settings.vatRateBasisPoints, minutes],
-    )) as { id: string; number: string; email: string; currency: string; shippingCents: number; reservedUntil: Date }[];
-    if (!order) throw new Error('The order insert returned nothing');
     const setIds = [...new Set(rows.map((r) => r.spring_set_id).filter((x): x is string => !!x))];
     const sets = setIds.length ? await em.getRepository(SpringSet).createQueryBuilder('s').where('s.id IN (:...setIds)', { setIds }).getMany() : [];
     const setupOf = (r: CartLineRow) => sets.find((s) => s.id === r.spring_set_id)?.setup.find((x) => x.productId === r.product_id) ?? null;
-    await em.getRepository(OrderLine).insert(
-      rows.map((r, i) => ({
-        orderId: order.id,
-        position: i + 1,
-        productId: r.product_id,
-        sku: r.sku,
-        name: r.name,
-        kind: r.kind,
-        unitPriceCents: r.unit_price_cents,
-        quantity: r.quantity,
-        lineTotalCents: lineTotalCents(r.unit_price_cents, r.quantity),
-        springSetId: r.spring_set_id,
-        setup: setupOf(r),
-      })),
-    );
-    await reserveStock(em, rows.map((r) => ({ productId: r.product_id, name: r.name, quantity: r.quantity })), { orderId: order.id, actorId: owner.userId ?? null });
+    const lines = rows.map((r, i) => ({
+      position: i + 1, product_id: r.product_id, sku: r.sku, name: r.name, kind: r.kind, unit_price_cents: r.unit_price_cents, quantity: r.quantity,
+      line_total_cents: lineTotalCents(r.unit_price_cents, r.quantity), spring_set_id: r.spring_set_id, setup: setupOf(r),
+    }));
+    // The order (its number and reservation time from the database), its lines, the stock taken off the shelf and
+    // the ledger rows: one statement, so the hot product's row is locked only for the end of it and the commit.
+    const [order] = (await em.query(
+      `WITH new_order AS (
+         INSERT INTO orders (user_id, cart_id, email, customer_name, shipping_address, status, payment_status, fulfilment_status, currency,
+                             subtotal_cents, shipping_cents, vat_cents, total_cents, vat_rate_bp, reserved_until, stock_held)
+         VALUES ($1, $2, $3, $4, $5, 'pending', 'awaiting', 'unfulfilled', $6, $7, $8, $9, $10, $11, now() + make_interval(mins => $12), true)
+         RETURNING id, number, email, currency, shipping_cents, reserved_until
+       ), new_lines AS (
+         INSERT INTO order_lines (order_id, position, product_id, sku, name, kind, unit_price_cents, quantity, line_total_cents, spring_set_id, setup)
+         SELECT o.id, l.position, l.product_id, l.sku, l.name, l.kind, l.unit_price_cents, l.quantity, l.line_total_cents, l.spring_set_id, l.setup
+           FROM new_order o, jsonb_to_recordset($13::jsonb) AS l(position int, product_id uuid, sku varchar, name varchar, kind varchar,
+                unit_price_cents int, quantity int, line_total_cents int, spring_set_id uuid, setup jsonb)
+         RETURNING order_id, product_id, quantity
+       ), ${saleMovesCte('new_lines', '$1')}, ${stockMovementCtes({ requireActive: true })}
+       SELECT o.id, o.number, o.email, o.currency, o.shipping_cents AS "shippingCents", o.reserved_until AS "reservedUntil",
+              ARRAY(SELECT id FROM stock_moved)::text[] AS "movedIds"
+         FROM new_order o`,
+      [owner.userId, cartId, dto.email.trim().toLowerCase(), dto.shippingAddress.name.trim(), JSON.stringify({ ...dto.shippingAddress }), totals.currency,
+        totals.subtotalCents, totals.shippingCents, totals.vatCents, totals.totalCents, settings.vatRateBasisPoints, minutes, JSON.stringify(lines)],
+    )) as { id: string; number: string; email: string; currency: string; shippingCents: number; reservedUntil: Date; movedIds: string[] }[];
+    if (!order) throw new Error('The order insert returned nothing');
+    await refuseUncoveredSale(em, rows.map((r) => ({ productId: r.product_id, name: r.name, quantity: r.quantity })), order.movedIds);
     return { order, replaced, rows };
   }));
 
@@ -149,7 +149,10 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
       reason: 'payment-unavailable',
     });
   }
-  await AppDataSource.getRepository(Order).update({ id: order.id }, { paymentSessionId: session.id, paymentUrl: session.url, ...(session.paymentIntentId ? { paymentIntentId: session.paymentIntentId } : {}) });
+  await AppDataSource.query(
+    `UPDATE orders SET payment_session_id = $2, payment_url = $3, payment_intent_id = coalesce($4, payment_intent_id), updated_at = now() WHERE id = $1`,
+    [order.id, session.id, session.url, session.paymentIntentId],
+  );
   return { orderId: order.id, orderNumber: order.number, paymentUrl: session.url!, accessToken: token };
 }
 

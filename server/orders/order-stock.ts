@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { AppError } from '../errors';
-import { isShortOfStock, recordStockMovement } from '../stock/stock-ledger';
+import { isShortOfStock, recordStockMovement, shortOfStockError, stockMovementCtes, stockMovesFromJson, stockMovesJson } from '../stock/stock-ledger';
 import type { Order } from './Order.entity';
 
 export interface StockNeed {
@@ -21,23 +21,41 @@ export function outOfStock(name: string, productId: string, available: number, w
 }
 
 /**
- * Takes units off the shelf for an order, one ledger row per product, in product-id order, so concurrent checkouts
- * lock rows in the same order (no deadlock) and stock can never go below zero.
+ * The `moves` CTE of a sale (see stockMovementCtes): one row per product of the order lines inserted by the CTE named
+ * `linesCte`, taking their units off the shelf; `actorParam` is the placeholder of who placed the order.
+ */
+export function saleMovesCte(linesCte: string, actorParam: string): string {
+  return `moves AS (
+      SELECT product_id, -sum(quantity)::int AS quantity, 'sale'::varchar AS reason, order_id, NULL::uuid AS exchange_id,
+             NULL::varchar AS delivery_ref, ''::text AS note, ${actorParam}::uuid AS actor_id
+        FROM ${linesCte} WHERE product_id IS NOT NULL GROUP BY product_id, order_id
+    )`;
+}
+
+/**
+ * After a sale's statement: when the shelf could not cover every product (fewer moved than needed), the 409 names
+ * the first one short in product-id order, as the locks were taken. The caller's transaction rolls the rest back.
+ */
+export async function refuseUncoveredSale(em: EntityManager, needs: StockNeed[], movedIds: string[]): Promise<void> {
+  const moved = new Set(movedIds);
+  const short = [...needs].sort((a, b) => (a.productId < b.productId ? -1 : 1)).find((n) => !moved.has(n.productId));
+  if (!short) return;
+  const wanted = needs.filter((n) => n.productId === short.productId).reduce((s, n) => s + n.quantity, 0);
+  const e = await shortOfStockError(em, short.productId, -wanted);
+  if (isShortOfStock(e)) throw outOfStock(short.name, short.productId, e.details.active ? e.details.available : 0, wanted);
+  throw e;
+}
+
+/**
+ * Takes units off the shelf for an order already written, one ledger row per product, in one guarded statement
+ * (stock never below zero, locks in product-id order). Checkout does the same inside its own statement.
  */
 export async function reserveStock(em: EntityManager, needs: StockNeed[], ref: { orderId: string; actorId: string | null }): Promise<void> {
-  const byProduct = new Map<string, StockNeed>();
-  for (const n of needs) {
-    const seen = byProduct.get(n.productId);
-    byProduct.set(n.productId, seen ? { ...seen, quantity: seen.quantity + n.quantity } : { ...n });
-  }
-  for (const n of [...byProduct.values()].sort((a, b) => (a.productId < b.productId ? -1 : 1))) {
-    try {
-      await recordStockMovement(em, { productId: n.productId, quantity: -n.quantity, reason: 'sale', orderId: ref.orderId, actorId: ref.actorId, requireActive: true });
-    } catch (e) {
-      if (isShortOfStock(e)) throw outOfStock(n.name, n.productId, e.details.active ? e.details.available : 0, n.quantity);
-      throw e;
-    }
-  }
+  const perProduct = new Map<string, number>();
+  for (const n of needs) perProduct.set(n.productId, (perProduct.get(n.productId) ?? 0) + n.quantity);
+  const moves = stockMovesJson([...perProduct].map(([productId, quantity]) => ({ productId, quantity: -quantity, reason: 'sale' as const, orderId: ref.orderId, actorId: ref.actorId })));
+  const [row] = (await em.query(`WITH ${stockMovesFromJson('$1')}, ${stockMovementCtes({ requireActive: true })} SELECT ARRAY(SELECT id FROM stock_moved)::text[] AS ids`, [moves])) as { ids: string[] }[];
+  await refuseUncoveredSale(em, needs, row!.ids);
 }
 
 /**
