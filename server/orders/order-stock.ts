@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { AppError } from '../errors';
-import { isShortOfStock, recordStockMovement, shortOfStockError, stockMovementCtes, stockMovesFromJson, stockMovesJson } from '../stock/stock-ledger';
+import { lockedShelfJson, recordStockMovement, stockMovementCtes, stockMovesFromJson, stockMovesJson, type LockedShelf } from '../stock/stock-ledger';
 import type { Order } from './Order.entity';
 
 export interface StockNeed {
@@ -21,41 +21,46 @@ export function outOfStock(name: string, productId: string, available: number, w
 }
 
 /**
- * The `moves` CTE of a sale (see stockMovementCtes): one row per product of the order lines inserted by the CTE named
- * `linesCte`, taking their units off the shelf; `actorParam` is the placeholder of who placed the order.
+ * The `moves` CTE of a sale (see stockMovementCtes): one row per product of the lines in the CTE `linesCte` (product_id,
+ * quantity), taking their units off the shelf for the order `orderParam`, placed by `actorParam` (placeholders).
  */
-export function saleMovesCte(linesCte: string, actorParam: string): string {
+export function saleMovesCte(linesCte: string, orderParam: string, actorParam: string): string {
   return `moves AS (
-      SELECT product_id, -sum(quantity)::int AS quantity, 'sale'::varchar AS reason, order_id, NULL::uuid AS exchange_id,
+      SELECT product_id, -sum(quantity)::int AS quantity, 'sale'::varchar AS reason, ${orderParam}::uuid AS order_id, NULL::uuid AS exchange_id,
              NULL::varchar AS delivery_ref, ''::text AS note, ${actorParam}::uuid AS actor_id
-        FROM ${linesCte} WHERE product_id IS NOT NULL GROUP BY product_id, order_id
+        FROM ${linesCte} WHERE product_id IS NOT NULL GROUP BY product_id
     )`;
 }
 
 /**
- * After a sale's statement: when the shelf could not cover every product (fewer moved than needed), the 409 names
- * the first one short in product-id order, as the locks were taken. The caller's transaction rolls the rest back.
+ * The 409 for a sale the shelf could not cover, from what the statement saw once it held the locks: the first
+ * product short in product-id order (the order the locks are taken in), or null when every product was covered.
  */
-export async function refuseUncoveredSale(em: EntityManager, needs: StockNeed[], movedIds: string[]): Promise<void> {
-  const moved = new Set(movedIds);
-  const short = [...needs].sort((a, b) => (a.productId < b.productId ? -1 : 1)).find((n) => !moved.has(n.productId));
-  if (!short) return;
-  const wanted = needs.filter((n) => n.productId === short.productId).reduce((s, n) => s + n.quantity, 0);
-  const e = await shortOfStockError(em, short.productId, -wanted);
-  if (isShortOfStock(e)) throw outOfStock(short.name, short.productId, e.details.active ? e.details.available : 0, wanted);
-  throw e;
+export function uncoveredSale(needs: StockNeed[], shelf: LockedShelf[]): AppError | null {
+  const wanted = new Map<string, StockNeed>();
+  for (const n of needs) {
+    const seen = wanted.get(n.productId);
+    wanted.set(n.productId, seen ? { ...seen, quantity: seen.quantity + n.quantity } : { ...n });
+  }
+  for (const n of [...wanted.values()].sort((a, b) => (a.productId < b.productId ? -1 : 1))) {
+    const p = shelf.find((s) => s.id === n.productId);
+    if (!p || !p.active) return outOfStock(n.name, n.productId, 0, n.quantity);
+    if (p.stockOnHand < n.quantity) return outOfStock(n.name, n.productId, p.stockOnHand, n.quantity);
+  }
+  return null;
 }
 
 /**
- * Takes units off the shelf for an order already written, one ledger row per product, in one guarded statement
- * (stock never below zero, locks in product-id order). Checkout does the same inside its own statement.
+ * Takes units off the shelf for an order already written, one ledger row per product, in one guarded statement:
+ * all products or none, stock never below zero, locks in product-id order. Checkout does the same inside its own
+ * statement.
  */
 export async function reserveStock(em: EntityManager, needs: StockNeed[], ref: { orderId: string; actorId: string | null }): Promise<void> {
   const perProduct = new Map<string, number>();
   for (const n of needs) perProduct.set(n.productId, (perProduct.get(n.productId) ?? 0) + n.quantity);
   const moves = stockMovesJson([...perProduct].map(([productId, quantity]) => ({ productId, quantity: -quantity, reason: 'sale' as const, orderId: ref.orderId, actorId: ref.actorId })));
-  const [row] = (await em.query(`WITH ${stockMovesFromJson('$1')}, ${stockMovementCtes({ requireActive: true })} SELECT ARRAY(SELECT id FROM stock_moved)::text[] AS ids`, [moves])) as { ids: string[] }[];
-  await refuseUncoveredSale(em, needs, row!.ids);
+  const [row] = (await em.query(`WITH ${stockMovesFromJson('$1')}, ${stockMovementCtes({ requireActive: true })} SELECT (SELECT ok FROM stock_covered) AS ok, ${lockedShelfJson} AS shelf`, [moves])) as { ok: boolean; shelf: LockedShelf[] }[];
+  if (!row!.ok) throw uncoveredSale(needs, row!.shelf) ?? new Error('The shelf refused a sale it could cover');
 }
 
 /**

@@ -37,19 +37,27 @@ function checkReason(m: Pick<StockMovementInput, 'reason' | 'quantity'>): void {
 }
 
 /**
- * The ledger rule as SQL, for a statement that needs it among other changes: given a CTE `moves` of (product_id,
- * quantity, reason, order_id, exchange_id, delivery_ref, note, actor_id) with one row per product, it adds CTEs that
- * lock those products in id order (so no two changes deadlock), apply each change only where the count stays at or
- * above zero (and, for sales, only to products on sale), and write one ledger row per applied change with the count
- * left. `stock_moved` names the products changed: fewer rows than `moves` means a shelf could not cover its change.
+ * The ledger rule as SQL, for a statement that needs it among other changes. Given a CTE `moves` of (product_id,
+ * quantity, reason, order_id, exchange_id, delivery_ref, note, actor_id) with one row per product, it adds:
+ * - `stock_locked` (id, stock_on_hand, active): those products locked in id order, so no two changes deadlock, with
+ *   the lock an UPDATE takes anyway (NO KEY UPDATE lets other orders' foreign-key checks through); the counts are
+ *   the ones really there once locked;
+ * - `stock_covered` (ok): whether every change fits (the count stays at or above zero; for sales, the product is on
+ *   sale). Changes apply all together or not at all, so a statement never leaves a half-taken basket;
+ * - `stock_moved` (id, stock_on_hand): the guarded updates, made only once every lock is held and all fit;
+ * - `stock_ledger`: one ledger row per change made, with the count left.
  */
 export function stockMovementCtes(opts: { requireActive: boolean }): string {
+  const fits = `l.stock_on_hand + m.quantity >= 0 ${opts.requireActive ? 'AND l.active' : ''}`;
   return `stock_locked AS (
-      SELECT p.id FROM products p WHERE p.id IN (SELECT product_id FROM moves) ORDER BY p.id FOR UPDATE
+      SELECT p.id, p.stock_on_hand, p.active FROM products p WHERE p.id = ANY (ARRAY(SELECT product_id FROM moves)) ORDER BY p.id FOR NO KEY UPDATE
+    ), stock_covered AS (
+      SELECT count(*) = (SELECT count(*) FROM moves) AND coalesce(bool_and(${fits}), true) AS ok
+        FROM stock_locked l JOIN moves m ON m.product_id = l.id
     ), stock_moved AS (
       UPDATE products p SET stock_on_hand = p.stock_on_hand + m.quantity, updated_at = now()
         FROM moves m
-       WHERE p.id = m.product_id AND p.id IN (SELECT id FROM stock_locked) AND p.stock_on_hand + m.quantity >= 0 ${opts.requireActive ? 'AND p.active' : ''}
+       WHERE p.id = ANY (ARRAY(SELECT id FROM stock_locked)) AND p.id = m.product_id AND (SELECT ok FROM stock_covered) AND p.stock_on_hand + m.quantity >= 0
       RETURNING p.id, p.stock_on_hand
     ), stock_ledger AS (
       INSERT INTO stock_movements (product_id, quantity, reason, order_id, exchange_id, delivery_ref, note, actor_id, stock_after)
@@ -57,6 +65,14 @@ export function stockMovementCtes(opts: { requireActive: boolean }): string {
         FROM moves m JOIN stock_moved s ON s.id = m.product_id
       RETURNING product_id
     )`;
+}
+
+/** What stock_locked saw, as the statement's answer: `shelf` in the caller's final SELECT. */
+export const lockedShelfJson = `(SELECT coalesce(json_agg(json_build_object('id', id, 'stockOnHand', stock_on_hand, 'active', active) ORDER BY id), '[]') FROM stock_locked)`;
+export interface LockedShelf {
+  id: string;
+  stockOnHand: number;
+  active: boolean;
 }
 
 /** The `moves` CTE over a JSON list of changes, for stockMovementCtes; `$n` is where the caller passes stockMovesJson(...). */
