@@ -21,7 +21,7 @@ describe('the paid demo orders', () => {
     shopSettingsChanged();
     expect(await seedDemoOrders(a.config)).toBe(2);
     const orders = (await AppDataSource.query(`SELECT id, number, payment_status, payment_intent_id, total_cents FROM orders ORDER BY number`)) as { id: string; number: string; payment_status: string; payment_intent_id: string; total_cents: number }[];
-    expect(orders.map((o) => [o.number, o.payment_status])).toEqual([['LL-1001', 'paid'], ['LL-1002', 'paid']]);
+    expect(orders.map((o) => o.payment_status)).toEqual(['paid', 'paid']);
     for (const o of orders) expect(o.payment_intent_id).toMatch(/^pi_/);
     const staff = await userWithToken(a.config, 'staff');
     const refunded = (await a.http.post(`/api/staff/orders/${orders[0]!.id}/refunds`).set(staff.auth).send({ restock: false, reason: 'Demo refund' }).expect(201)).body as OrderDto;
