@@ -1,17 +1,19 @@
+import autocannon from 'autocannon';
 import { spawn, spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync, existsSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { fileURLToPath } from 'node:url';
+import { checkoutStages } from './checkout-stages';
+import { cpuMeter, selfCpu, treeCpu } from './cpu';
 import { benchDatabaseUrl, freshDemoDatabase, startApp } from './lib';
 
 const buyers = Number(process.env.BENCH_BUYERS ?? 200);
 const seconds = Number(process.env.BENCH_SECONDS ?? 8);
+const rounds = Number(process.env.BENCH_ROUNDS ?? 3);
 const pgbenchClients = 50;
 const standinPort = Number(process.env.BENCH_STRIPE_API_PORT ?? 8472);
-
-const pct = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
 
 /** The database's own floor: pgbench running the checkout's guarded stock update, its ledger row and an order insert on the same hot row. */
 function pgbenchFloor(productId: string): number {
@@ -37,26 +39,37 @@ COMMIT;
 }
 
 /** The payment stand-in in its own process, so the app's calls to it cross a real socket as in production. */
-async function startStandin(): Promise<() => Promise<void>> {
+async function startStandin(): Promise<{ pid: number; stop(): Promise<void> }> {
   const runDir = mkdtempSync(join(tmpdir(), 'loadline-bench-run-'));
   const child = spawn(process.execPath, [...process.execArgv, fileURLToPath(new URL('../standins/payments/main.ts', import.meta.url))], {
     env: { ...process.env, STRIPE_API_PORT: String(standinPort), LOADLINE_RUN_DIR: runDir, PAYMENTS_WEBHOOK_URL: '' },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   for (let i = 0; i < 100 && !existsSync(join(runDir, 'standins', 'payments.ready')); i++) await new Promise((r) => setTimeout(r, 100));
-  return async () => {
-    await new Promise((r) => {
-      child.once('exit', r);
-      child.kill('SIGTERM');
-    });
-    rmSync(runDir, { recursive: true, force: true });
+  return {
+    pid: child.pid!,
+    async stop() {
+      await new Promise((r) => {
+        child.once('exit', r);
+        child.kill('SIGTERM');
+      });
+      rmSync(runDir, { recursive: true, force: true });
+    },
   };
 }
 
+/** Where the database's postmaster runs, so its backends' CPU can be read. */
+async function postmasterPid(): Promise<number> {
+  const { AppDataSource } = await import('../server/db/data-source');
+  const [{ setting }] = (await AppDataSource.query(`SELECT setting FROM pg_settings WHERE name = 'data_directory'`)) as [{ setting: string }];
+  return Number(readFileSync(join(setting, 'postmaster.pid'), 'utf8').split('\n')[0]);
+}
+
 /**
- * 200 buyers checking out at once, each with a cart of one unit of the same hot product, for a few seconds; beside
- * it, pgbench's floor for the same stock update and order insert with 50 clients. Prints orders/s, the ratio to the
- * floor and p50/p99 of the checkout answers. Targets: ratio ≥ 0.3, p99 < 1 s.
+ * 200 buyers checking out at once, each with a cart of one unit of the same hot product, for a few seconds, in
+ * several rounds (BENCH_ROUNDS, default 3); each round measures pgbench's floor for the same stock update, ledger row
+ * and order insert with 50 clients first. Prints orders/s, the ratio to the floor, p50/p99 of the checkout answers,
+ * and the CPU each process spent per checkout. Targets: ratio ≥ 0.3, p99 < 1 s.
  */
 export async function run(): Promise<void> {
   await freshDemoDatabase();
@@ -65,10 +78,9 @@ export async function run(): Promise<void> {
     ((await AppDataSource.query(`INSERT INTO products (sku, name, kind, price_cents, stock_on_hand) VALUES ($1, $2, 'tool', 3900, 10000000) RETURNING id`, [`BENCH-${name}`, name])) as { id: string }[])[0]!.id;
 
   const floorProduct = await product('floor hot spring');
-  const floor = pgbenchFloor(floorProduct);
-
   const hot = await product('bench hot spring');
-  const cartCount = Math.max(buyers * 40, 4000);
+  // Enough carts that no buyer reuses one (a second checkout of a cart replaces the first, another path).
+  const cartCount = rounds * seconds * 1200 + 1000;
   const carts = ((await AppDataSource.query(`INSERT INTO carts (user_id) SELECT NULL FROM generate_series(1, $1) RETURNING id`, [cartCount])) as { id: string }[]).map((c) => c.id);
   await AppDataSource.query(`INSERT INTO cart_lines (cart_id, product_id, quantity, unit_price_cents) SELECT unnest($1::uuid[]), $2, 1, 3900`, [carts, hot]);
 
@@ -76,57 +88,62 @@ export async function run(): Promise<void> {
   process.env.STRIPE_SECRET_KEY ??= 'sk_test_loadline_bench';
   process.env.STRIPE_WEBHOOK_SECRET ??= 'whsec_loadline_bench';
   process.env.STRIPE_API_PORT = String(standinPort);
-  const stopStandin = await startStandin();
+  const standin = await startStandin();
   let app: Awaited<ReturnType<typeof startApp>> | undefined;
   try {
     app = await startApp({ stripeApiPort: standinPort, reservationSweepMs: 0, logLevel: 'silent' });
-    const body = JSON.stringify({ email: 'buyer@example.test', shippingAddress: { name: 'Bench Buyer', line1: '1 Load St', postalCode: '10115', city: 'Eastbrook', country: 'DE' } });
+    const body = { email: 'buyer@example.test', shippingAddress: { name: 'Bench Buyer', line1: '1 Load St', postalCode: '10115', city: 'Eastbrook', country: 'DE' } };
+    const text = JSON.stringify(body);
     let next = 0;
-    const latencies: number[] = [];
-    let failures = 0;
-    const failedWith = new Map<string, number>();
     const checkoutOnce = async (cart: string) => {
-      const t0 = performance.now();
-      const res = await fetch(`${app!.url}/api/checkout`, { method: 'POST', headers: { 'Content-Type': 'application/json', Cookie: `loadline_cart=${cart}` }, body });
+      const res = await fetch(`${app!.url}/api/checkout`, { method: 'POST', headers: { 'Content-Type': 'application/json', Cookie: `loadline_cart=${cart}` }, body: text });
       await res.arrayBuffer();
-      if (res.status === 201) latencies.push(performance.now() - t0);
-      else {
-        failures += 1;
-        const key = `${res.status}`;
-        failedWith.set(key, (failedWith.get(key) ?? 0) + 1);
-      }
+      if (res.status !== 201) throw new Error(`warm-up checkout answered ${res.status}`);
     };
-    // Warm-up: a few checkouts so JIT, pools and the stand-in are ready.
-    await Promise.all(Array.from({ length: 20 }, () => checkoutOnce(carts[next++]!)));
-    // One buyer alone, for the floor of a checkout's own latency on this machine.
+    // Warm-up: JIT, pools and the stand-in's sockets ready before anything is measured.
+    await Promise.all(Array.from({ length: 50 }, () => checkoutOnce(carts[next++]!)));
     const alone: number[] = [];
     for (let i = 0; i < 10; i++) {
       const t0 = performance.now();
       await checkoutOnce(carts[next++]!);
       alone.push(performance.now() - t0);
     }
-    latencies.length = 0;
-    failures = 0;
-    failedWith.clear();
-    const until = performance.now() + seconds * 1000;
-    const start = performance.now();
-    await Promise.all(
-      Array.from({ length: buyers }, async () => {
-        while (performance.now() < until && next < carts.length) await checkoutOnce(carts[next++]!);
-      }),
-    );
-    const elapsed = (performance.now() - start) / 1000;
-    const sorted = [...latencies].sort((a, b) => a - b);
-    const ordersPerSec = latencies.length / elapsed;
-    console.log(`\ncheckout: ${buyers} concurrent buyers for ${seconds} s on one hot product; pgbench floor with ${pgbenchClients} clients for ${seconds} s`);
-    console.log(`  pgbench floor (guarded update + order insert): ${floor.toFixed(0)} tps`);
-    console.log(`  checkout through the app and the payment stand-in: ${ordersPerSec.toFixed(0)} orders/s (${latencies.length} orders, ${failures} failed)`);
-    if (failures) console.log(`  failed answers by status: ${JSON.stringify(Object.fromEntries(failedWith))}`);
-    console.log(`  one buyer alone: ${[...alone].sort((a, b) => a - b)[5]!.toFixed(0)} ms per checkout (median of 10)`);
-    console.log(`  ratio to the floor: ${(ordersPerSec / floor).toFixed(3)} (target ≥ 0.3)`);
-    console.log(`  latency p50 ${pct(sorted, 50).toFixed(0)} ms, p99 ${pct(sorted, 99).toFixed(0)} ms (target p99 < 1000 ms)`);
+    const pgPid = await postmasterPid();
+    console.log(`\ncheckout: ${buyers} concurrent buyers for ${seconds} s on one hot product, ${rounds} rounds; pgbench floor with ${pgbenchClients} clients for ${seconds} s before each`);
+    console.log(`  one buyer alone: ${[...alone].sort((a, b) => a - b)[5]!.toFixed(1)} ms per checkout (median of 10)`);
+    const results: { floor: number; ordersPerSec: number; p50: number; p99: number }[] = [];
+    for (let round = 1; round <= rounds; round++) {
+      const floorMeter = cpuMeter({ postgres: treeCpu(pgPid) });
+      const floor = pgbenchFloor(floorProduct);
+      const floorCpu = floorMeter.read().postgres! / (floor * seconds);
+      const meter = cpuMeter({ generator: selfCpu(process.pid), app: treeCpu(app.pid), 'payment stand-in': treeCpu(standin.pid), postgres: treeCpu(pgPid) });
+      // autocannon keeps one request in flight per connection: each connection is one buyer, each request its own cart.
+      const r = await autocannon({
+        url: `${app.url}/api/checkout`,
+        connections: buyers,
+        duration: seconds,
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: text,
+        requests: [{ setupRequest: (req) => ({ ...req, headers: { ...req.headers, cookie: `loadline_cart=${carts[next++ % carts.length]}` } }) }],
+      });
+      const cpu = meter.read();
+      // Checkouts autocannon gave up on at the end still run in the app; one more through the same queue waits them out.
+      await checkoutOnce(carts[next++ % carts.length]!);
+      const orders = r['2xx'];
+      const ordersPerSec = orders / r.duration;
+      results.push({ floor, ordersPerSec, p50: r.latency.p50, p99: r.latency.p99 });
+      console.log(
+        `  round ${round}: floor ${floor.toFixed(0)} tps | app ${ordersPerSec.toFixed(0)} orders/s (${orders} orders${r.non2xx || r.errors ? `, ${r.non2xx} non-2xx, ${r.errors} errors` : ''}) | ` +
+          `ratio ${(ordersPerSec / floor).toFixed(3)} | p50 ${r.latency.p50} ms, p99 ${r.latency.p99} ms`,
+      );
+      console.log(`           CPU per checkout: ${Object.entries(cpu).map(([k, ms]) => `${k} ${((ms * 1000) / Math.max(orders, 1)).toFixed(0)} µs`).join(', ')}; postgres per floor transaction ${(floorCpu * 1000).toFixed(0)} µs`);
+    }
+    const med = (f: (x: (typeof results)[number]) => number) => [...results.map(f)].sort((a, b) => a - b)[Math.floor(results.length / 2)]!;
+    console.log(`  median of rounds: floor ${med((x) => x.floor).toFixed(0)} tps, ${med((x) => x.ordersPerSec).toFixed(0)} orders/s, ratio ${med((x) => x.ordersPerSec / x.floor).toFixed(3)} (target ≥ 0.3), p50 ${med((x) => x.p50)} ms, p99 ${med((x) => x.p99)} ms (target < 1000 ms)`);
+    await checkoutStages({ appUrl: app.url, carts: carts.slice(cartCount - 200), body });
   } finally {
     await app?.close();
-    await stopStandin();
+    await standin.stop();
   }
 }

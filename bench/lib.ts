@@ -47,6 +47,8 @@ export async function freshDemoDatabase(): Promise<void> {
 
 export interface Running {
   url: string;
+  /** The server's process, to read its CPU time. */
+  pid: number;
   close(): Promise<void>;
 }
 
@@ -69,6 +71,7 @@ function serve(mode: 'app' | 'baseline', overrides: Record<string, unknown> = {}
       child.removeAllListeners('exit');
       resolve({
         url: `http://127.0.0.1:${port}`,
+        pid: child.pid!,
         close: () => new Promise((r) => {
           child.once('exit', () => r());
           child.kill('SIGTERM');

@@ -35,9 +35,10 @@ trap 'exit 130' INT TERM
 
 bash docker-free-db/db.sh ensure-db "${DATABASE_URL##*/}" >/dev/null
 tsx_server server/db/migrate.ts
+# The stand-ins first: the demo orders are paid on the payment stand-in, so staff can refund them.
+bash scripts/standins.sh start
 tsx_server seeds/seed.ts --if-empty
 ensure_client_build
-bash scripts/standins.sh start
 
 cat <<MSG
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { allowedMoves, canMove, fulfilmentStatuses, mayRefund, mayRiderCancel, orderStatuses, paymentStatuses } from './order-status';
+import { allowedMoves, canMove, fulfilmentStatuses, mayRefund, mayRiderCancel, mayStaffCancel, orderStatuses, paymentStatuses } from './order-status';
 
 describe('order state moves', () => {
   it('an order is confirmed or cancelled from pending, and nothing leaves cancelled or completed', () => {
@@ -36,5 +36,16 @@ describe('order state moves', () => {
     expect(mayRiderCancel({ status: 'cancelled', paymentStatus: 'awaiting', fulfilmentStatus: 'unfulfilled' })).toBe(false);
     expect(mayRefund({ status: 'confirmed', paymentStatus: 'awaiting', fulfilmentStatus: 'unfulfilled' })).toBe(false);
     expect(mayRefund({ status: 'confirmed', paymentStatus: 'partially-refunded', fulfilmentStatus: 'shipped' })).toBe(true);
+  });
+
+  it('staff cancel only a pending order whose money has not come in; a paid one is refunded, never cancelled by staff', () => {
+    for (const status of orderStatuses) {
+      for (const paymentStatus of paymentStatuses) {
+        const expected = status === 'pending' && (paymentStatus === 'awaiting' || paymentStatus === 'failed');
+        expect(mayStaffCancel({ status, paymentStatus, fulfilmentStatus: 'unfulfilled' }), `${status}/${paymentStatus}`).toBe(expected);
+        // Never both: an order staff may cancel has nothing to refund.
+        if (expected) expect(mayRefund({ status, paymentStatus, fulfilmentStatus: 'unfulfilled' })).toBe(false);
+      }
+    }
   });
 });

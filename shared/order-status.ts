@@ -55,6 +55,15 @@ export function mayRiderCancel(o: OrderStates): boolean {
   return canMove('status', o.status, 'cancelled') && o.fulfilmentStatus === 'unfulfilled';
 }
 
+/**
+ * Staff may cancel an order still waiting for its money (awaiting, or a card declined); a paid one is refunded instead.
+ * @example mayStaffCancel({status: 'pending', paymentStatus: 'awaiting', fulfilmentStatus: 'unfulfilled'}) // true
+ * @example mayStaffCancel({status: 'confirmed', paymentStatus: 'paid', fulfilmentStatus: 'unfulfilled'}) // false
+ */
+export function mayStaffCancel(o: OrderStates): boolean {
+  return o.status === 'pending' && (o.paymentStatus === 'awaiting' || o.paymentStatus === 'failed') && canMove('status', o.status, 'cancelled');
+}
+
 /** Staff may refund money that was taken and not yet all given back. */
 export function mayRefund(o: OrderStates): boolean {
   return o.paymentStatus === 'paid' || o.paymentStatus === 'partially-refunded';

@@ -62,6 +62,7 @@ const matrix: Record<string, Access> = {
   'DELETE /api/staff/products/:id/images/:imageId': staff,
   'GET /api/staff/orders': staff,
   'GET /api/staff/orders/:id': staff,
+  'POST /api/staff/orders/:id/cancel': staff,
   'POST /api/staff/orders/:id/refunds': staff,
   'GET /api/staff/spring-options': staff,
   'POST /api/staff/spring-geometry': staff,

@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { SpringSetDto } from '../../shared/commerce/cart.dto';
 import type { OrderDto, OrderSummaryDto } from '../../shared/commerce/order.dto';
-import { mayRefund, mayRiderCancel } from '../../shared/order-status';
+import { mayRefund, mayRiderCancel, mayStaffCancel } from '../../shared/order-status';
 import { SpringSet } from '../cart/SpringSet.entity';
 import { toSpringSetDto } from '../cart/cart-dto';
 import type { Order } from './Order.entity';
@@ -84,6 +84,7 @@ export async function toOrderDto(em: EntityManager, o: Order): Promise<OrderDto>
     },
     refunds: refunds.map((r) => ({ id: r.id, amountCents: r.amountCents, reason: r.reason, createdAt: r.createdAt.toISOString() })),
     mayCancel: mayRiderCancel(o),
+    mayStaffCancel: mayStaffCancel(o),
     mayRefund: mayRefund(o),
     shipments: await shipmentsOf(em, o.id),
   };

@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { AppError } from '../errors';
-import { isShortOfStock, recordStockMovement } from '../stock/stock-ledger';
+import { lockedShelfJson, recordStockMovement, stockMovementCtes, stockMovesFromJson, stockMovesJson, type LockedShelf } from '../stock/stock-ledger';
 import type { Order } from './Order.entity';
 
 export interface StockNeed {
@@ -21,23 +21,46 @@ export function outOfStock(name: string, productId: string, available: number, w
 }
 
 /**
- * Takes units off the shelf for an order, one ledger row per product, in product-id order, so concurrent checkouts
- * lock rows in the same order (no deadlock) and stock can never go below zero.
+ * The `moves` CTE of a sale (see stockMovementCtes): one row per product of the lines in the CTE `linesCte` (product_id,
+ * quantity), taking their units off the shelf for the order `orderParam`, placed by `actorParam` (placeholders).
+ */
+export function saleMovesCte(linesCte: string, orderParam: string, actorParam: string): string {
+  return `moves AS (
+      SELECT product_id, -sum(quantity)::int AS quantity, 'sale'::varchar AS reason, ${orderParam}::uuid AS order_id, NULL::uuid AS exchange_id,
+             NULL::varchar AS delivery_ref, ''::text AS note, ${actorParam}::uuid AS actor_id
+        FROM ${linesCte} WHERE product_id IS NOT NULL GROUP BY product_id
+    )`;
+}
+
+/**
+ * The 409 for a sale the shelf could not cover, from what the statement saw once it held the locks: the first
+ * product short in product-id order (the order the locks are taken in), or null when every product was covered.
+ */
+export function uncoveredSale(needs: StockNeed[], shelf: LockedShelf[]): AppError | null {
+  const wanted = new Map<string, StockNeed>();
+  for (const n of needs) {
+    const seen = wanted.get(n.productId);
+    wanted.set(n.productId, seen ? { ...seen, quantity: seen.quantity + n.quantity } : { ...n });
+  }
+  for (const n of [...wanted.values()].sort((a, b) => (a.productId < b.productId ? -1 : 1))) {
+    const p = shelf.find((s) => s.id === n.productId);
+    if (!p || !p.active) return outOfStock(n.name, n.productId, 0, n.quantity);
+    if (p.stockOnHand < n.quantity) return outOfStock(n.name, n.productId, p.stockOnHand, n.quantity);
+  }
+  return null;
+}
+
+/**
+ * Takes units off the shelf for an order already written, one ledger row per product, in one guarded statement:
+ * all products or none, stock never below zero, locks in product-id order. Checkout does the same inside its own
+ * statement.
  */
 export async function reserveStock(em: EntityManager, needs: StockNeed[], ref: { orderId: string; actorId: string | null }): Promise<void> {
-  const byProduct = new Map<string, StockNeed>();
-  for (const n of needs) {
-    const seen = byProduct.get(n.productId);
-    byProduct.set(n.productId, seen ? { ...seen, quantity: seen.quantity + n.quantity } : { ...n });
-  }
-  for (const n of [...byProduct.values()].sort((a, b) => (a.productId < b.productId ? -1 : 1))) {
-    try {
-      await recordStockMovement(em, { productId: n.productId, quantity: -n.quantity, reason: 'sale', orderId: ref.orderId, actorId: ref.actorId, requireActive: true });
-    } catch (e) {
-      if (isShortOfStock(e)) throw outOfStock(n.name, n.productId, e.details.active ? e.details.available : 0, n.quantity);
-      throw e;
-    }
-  }
+  const perProduct = new Map<string, number>();
+  for (const n of needs) perProduct.set(n.productId, (perProduct.get(n.productId) ?? 0) + n.quantity);
+  const moves = stockMovesJson([...perProduct].map(([productId, quantity]) => ({ productId, quantity: -quantity, reason: 'sale' as const, orderId: ref.orderId, actorId: ref.actorId })));
+  const [row] = (await em.query(`WITH ${stockMovesFromJson('$1')}, ${stockMovementCtes({ requireActive: true })} SELECT (SELECT ok FROM stock_covered) AS ok, ${lockedShelfJson} AS shelf`, [moves])) as { ok: boolean; shelf: LockedShelf[] }[];
+  if (!row!.ok) throw uncoveredSale(needs, row!.shelf) ?? new Error('The shelf refused a sale it could cover');
 }
 
 /**

@@ -6,6 +6,7 @@ import { endpoint } from '../http/endpoint';
 import type { PaymentProvider } from '../payments/payment-provider';
 import * as orders from './orders.service';
 import { refundOrder } from './refunds.service';
+import { cancelUnpaidByStaff } from './staff-cancel.service';
 
 /** A buyer's orders: the signed-in rider's list, and one order for its owner or the holder of its link. */
 export function orderRoutes(config: Config, provider: PaymentProvider): Router {
@@ -33,6 +34,9 @@ export function staffOrderRoutes(config: Config, provider: PaymentProvider): Rou
   }));
   r.get('/:id', endpoint({ summary: 'One order as staff see it', ids: order }, async ({ ids }, _req, res) => {
     res.json(await orders.viewOrderForStaff(ids.id));
+  }));
+  r.post('/:id/cancel', endpoint({ summary: 'Cancel a pending order that is not paid (stock back, payment page closed, buyer told)', ids: order }, async ({ ids }, req, res) => {
+    res.json(await cancelUnpaidByStaff(config, provider, requireUser(req).id, ids.id));
   }));
   r.post('/:id/refunds', endpoint({ summary: 'Refund a whole order or some of its lines', ids: order, body: RefundDto, status: 201 }, async ({ ids, body }, req, res) => {
     res.status(201).json(await refundOrder(config, provider, requireUser(req).id, ids.id, body));

@@ -37,6 +37,26 @@ export async function recordRefund(em: EntityManager, config: Config, o: Order, 
   await orderMail.refunded(em, config, o, saved.id, r.amountCents);
 }
 
+/**
+ * A refund the provider reports (charge.refunded): `amountRefundedCents` is everything refunded on the charge so far.
+ * Refunds the shop made itself are already recorded (their ids are known and counted in refundedCents), so only what
+ * goes beyond them is recorded, once, as made on the provider's side, with its mail; stock stays where it is, since
+ * no goods came back. The order is locked by the caller.
+ * @returns whether anything new was recorded
+ */
+export async function recordProviderRefund(em: EntityManager, config: Config, o: Order, charge: { amountRefundedCents: number; refundIds: string[] }): Promise<boolean> {
+  if (!mayRefund(o)) return false;
+  const extra = Math.min(charge.amountRefundedCents, o.totalCents) - o.refundedCents;
+  if (extra <= 0) return false;
+  const known = charge.refundIds.length
+    ? ((await em.query(`SELECT provider_refund_id FROM refunds WHERE provider_refund_id = ANY($1)`, [charge.refundIds])) as { provider_refund_id: string }[]).map((r) => r.provider_refund_id)
+    : [];
+  // The provider lists a charge's refunds newest first; without the list, the running total names this one.
+  const providerRefundId = charge.refundIds.find((id) => !known.includes(id)) ?? `external:${o.paymentIntentId}:${charge.amountRefundedCents}`;
+  await recordRefund(em, config, o, { providerRefundId, amountCents: extra, reason: 'Refunded on the payment service, outside the shop.', lines: [], actorId: null });
+  return true;
+}
+
 /** Puts returned units back on the shelf and counts them on their line, so a later release never counts them twice. */
 async function restockLine(em: EntityManager, line: OrderLine, quantity: number, actorId: string | null): Promise<void> {
   if (!line.productId || quantity <= 0) return;

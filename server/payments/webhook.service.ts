@@ -5,10 +5,11 @@ import type { Config } from '../config';
 import { AppDataSource } from '../db/data-source';
 import { orderMail } from '../orders/order-mail';
 import { lockOrder, moveOrder } from '../orders/order-moves';
+import { recordProviderRefund } from '../orders/refunds.service';
 import type { Order } from '../orders/Order.entity';
 import type { ProviderEvent } from './payment-provider';
 
-export type EventOutcome = ExchangeEventOutcome | 'duplicate' | 'unknown-order' | 'paid' | 'already-paid' | 'paid-after-cancel' | 'not-yet-paid' | 'failed' | 'expired' | 'refund-noted' | 'ignored' | 'no-change';
+export type EventOutcome = ExchangeEventOutcome | 'duplicate' | 'unknown-order' | 'paid' | 'already-paid' | 'paid-after-cancel' | 'not-yet-paid' | 'failed' | 'expired' | 'refund-noted' | 'refund-recorded' | 'ignored' | 'no-change';
 
 const str = (v: unknown) => (typeof v === 'string' ? v : null);
 
@@ -89,9 +90,15 @@ async function apply(em: EntityManager, config: Config, event: ProviderEvent): P
       return { outcome: await markFailed(em, config, o, err?.message ?? 'The payment was declined.'), order: o };
     }
     case 'charge.refunded': {
-      // Refunds the shop makes are recorded when made; this only confirms them (and notes refunds made elsewhere in the log).
+      // Refunds the shop makes are recorded when made (this only confirms them); one made on the provider's side is recorded here.
       const o = await orderForIntent(em, obj, 'payment_intent');
-      return { outcome: o ? 'refund-noted' : 'unknown-order', order: o };
+      if (!o) return { outcome: 'unknown-order', order: null };
+      const refunds = (obj.refunds as { data?: { id?: unknown }[] } | undefined)?.data ?? [];
+      const recorded = await recordProviderRefund(em, config, o, {
+        amountRefundedCents: typeof obj.amount_refunded === 'number' && Number.isSafeInteger(obj.amount_refunded) ? obj.amount_refunded : 0,
+        refundIds: refunds.map((r) => str(r.id)).filter((id): id is string => !!id),
+      });
+      return { outcome: recorded ? 'refund-recorded' : 'refund-noted', order: o };
     }
     default:
       return { outcome: 'ignored', order: null };

@@ -31,6 +31,7 @@ export async function paymentsApp(overrides: Partial<Config> = {}) {
     server,
     port,
     stripe: admin,
+    secretKey: key,
     webhookSecret: endpoint.secret!,
     async close() {
       await admin.webhookEndpoints.del(endpoint.id).catch(() => undefined);

@@ -65,7 +65,7 @@ export const maxStockChange = 100_000;
 /** A spring fits a fitment's window when its inner diameter is within this of the fitment's, mm. */
 export const springFitToleranceMm = 0.5;
 
-export const auditEntityTypes = ['fitment', 'product', 'compatibility', 'shop-settings'] as const;
+export const auditEntityTypes = ['fitment', 'product', 'compatibility', 'shop-settings', 'order'] as const;
 export type AuditEntityType = (typeof auditEntityTypes)[number];
 
 /** How far a predicted static sag may sit from its target when a fitment names no tolerance, mm: the engine's default. */

@@ -54,6 +54,8 @@ export interface OrderDto extends OrderSummaryDto {
   milestones: { paidAt: string | null; paymentFailedAt: string | null; confirmedAt: string | null; cancelledAt: string | null; refundedAt: string | null; packedAt: string | null; shippedAt: string | null; deliveredAt: string | null; completedAt: string | null };
   refunds: { id: string; amountCents: number; reason: string; createdAt: string }[];
   mayCancel: boolean;
+  /** Staff may cancel it: pending and not paid. */
+  mayStaffCancel: boolean;
   mayRefund: boolean;
   /** Parcels sent, with carrier and tracking number. */
   shipments: ShipmentDto[];

@@ -113,6 +113,50 @@ export function expireSession(store: Store, s: SessionRecord): void {
   emitEvent(store, s._account, 'checkout.session.expired', s);
 }
 
+/**
+ * Refunds some or all of a paid payment and tells the account with charge.refunded (the charge's running refunded
+ * total and its refunds, newest first); shared by the API and the stand-in's dashboard.
+ */
+export function refundPayment(store: Store, acct: string, piId: string, amountCents: number | undefined, metadata: Record<string, string>): Record<string, unknown> {
+  const pi = store.state.paymentIntents[piId];
+  if (!pi || store.state.sessions[pi._session]?._account !== acct) throw missing('payment_intent', piId, 'payment_intent');
+  if (pi.status !== 'succeeded') throw invalid(`This PaymentIntent (${piId}) does not have a successful charge to refund.`, 'payment_intent');
+  const left = pi.amount_received - pi._refunded;
+  const amount = amountCents ?? left;
+  if (amount <= 0 || amount > left) throw new ApiError(400, 'invalid_request_error', `Refund amount (${amount}) is greater than unrefunded amount on charge (${left})`, 'amount_too_large', 'amount');
+  pi._refunded += amount;
+  const refund = { id: newId('re'), object: 'refund', amount, currency: pi.currency, payment_intent: pi.id, charge: pi.latest_charge, status: 'succeeded', metadata, created: Math.floor(Date.now() / 1000) };
+  store.state.refunds[refund.id] = refund;
+  const ofCharge = Object.values(store.state.refunds).filter((x) => x.payment_intent === pi.id).reverse();
+  emitEvent(store, acct, 'charge.refunded', {
+    id: pi.latest_charge, object: 'charge', amount: pi.amount, amount_captured: pi.amount, amount_refunded: pi._refunded, currency: pi.currency,
+    payment_intent: pi.id, refunded: pi._refunded >= pi.amount, status: 'succeeded', metadata: pi.metadata, livemode: false,
+    refunds: { object: 'list', data: ofCharge, has_more: false, url: `/v1/charges/${pi.latest_charge}/refunds` },
+  });
+  store.changed();
+  return refund;
+}
+
+/**
+ * What the service's own dashboard does and no API the shop calls: a person refunding a payment by hand. Tests and
+ * demos use it to see what the shop makes of a refund it did not start.
+ */
+export function dashboardRoutes(store: Store): Router {
+  const r = express.Router();
+  r.use(express.json(), express.urlencoded({ extended: false }));
+  r.post('/payment_intents/:id/refund', (req, res) => {
+    try {
+      const f = (req.body ?? {}) as Form;
+      const amount = f.amount === undefined ? undefined : int(String(f.amount), 'amount');
+      res.json(refundPayment(store, account(req), String(req.params.id), amount, { refundedFrom: 'dashboard' }));
+    } catch (e) {
+      if (e instanceof ApiError) sendError(res, e);
+      else throw e;
+    }
+  });
+  return r;
+}
+
 /** The service's REST API, as far as the shop uses it: form-encoded bodies, Bearer key, Idempotency-Key. */
 export function apiRoutes(store: Store, publicUrl: string): Router {
   const r = express.Router();
@@ -145,24 +189,7 @@ export function apiRoutes(store: Store, publicUrl: string): Router {
   r.post('/refunds', handle((req, res) => {
     const acct = account(req);
     const f = req.body as Form;
-    idempotent(store, req, res, () => {
-      const piId = str(f.payment_intent) ?? '';
-      const pi = store.state.paymentIntents[piId];
-      if (!pi || store.state.sessions[pi._session]?._account !== acct) throw missing('payment_intent', piId, 'payment_intent');
-      if (pi.status !== 'succeeded') throw invalid(`This PaymentIntent (${piId}) does not have a successful charge to refund.`, 'payment_intent');
-      const left = pi.amount_received - pi._refunded;
-      const amount = f.amount === undefined ? left : int(f.amount, 'amount');
-      if (amount <= 0 || amount > left) throw new ApiError(400, 'invalid_request_error', `Refund amount (${amount}) is greater than unrefunded amount on charge (${left})`, 'amount_too_large', 'amount');
-      pi._refunded += amount;
-      const refund = { id: newId('re'), object: 'refund', amount, currency: pi.currency, payment_intent: pi.id, charge: pi.latest_charge, status: 'succeeded', metadata: record(f.metadata), created: Math.floor(Date.now() / 1000) };
-      store.state.refunds[refund.id] = refund;
-      emitEvent(store, acct, 'charge.refunded', {
-        id: pi.latest_charge, object: 'charge', amount: pi.amount, amount_captured: pi.amount, amount_refunded: pi._refunded, currency: pi.currency,
-        payment_intent: pi.id, refunded: pi._refunded >= pi.amount, status: 'succeeded', metadata: pi.metadata, livemode: false,
-      });
-      store.changed();
-      return { status: 200, body: refund };
-    });
+    idempotent(store, req, res, () => ({ status: 200, body: refundPayment(store, acct, str(f.payment_intent) ?? '', f.amount === undefined ? undefined : int(f.amount, 'amount'), record(f.metadata)) }));
   }));
 
   // Where events go: the service keeps these per account; tests register their own server here.

@@ -1,7 +1,7 @@
 import express from 'express';
 import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { apiRoutes } from './api';
+import { apiRoutes, dashboardRoutes } from './api';
 import { deliverDue } from './events';
 import { expireDue, pageRoutes } from './page';
 import { Store } from './store';
@@ -28,6 +28,7 @@ const app = express();
 app.disable('x-powered-by');
 app.use('/v1', apiRoutes(store, publicUrl));
 app.use('/pay', pageRoutes(store));
+app.use('/dashboard', dashboardRoutes(store));
 app.get('/health', (_req, res) => void res.json({ status: 'ok' }));
 
 const retryBaseMs = Number(env.PAYMENTS_RETRY_BASE_MS ?? 500);

@@ -73,21 +73,25 @@ const empty = (): StandinState => ({ sessions: {}, paymentIntents: {}, refunds: 
 export class Store {
   state: StandinState;
   private timer: NodeJS.Timeout | undefined;
+  private lastFlushMs = 0;
 
   constructor(private readonly file: string) {
     this.state = existsSync(file) ? { ...empty(), ...(JSON.parse(readFileSync(file, 'utf8')) as Partial<StandinState>) } : empty();
   }
 
   changed(): void {
-    this.timer ??= setTimeout(() => this.flush(), 250);
+    // The whole state is written each time, so under a rush of sessions it is written less often: at most a tenth of the time.
+    this.timer ??= setTimeout(() => this.flush(), Math.max(250, this.lastFlushMs * 10));
   }
 
   flush(): void {
     clearTimeout(this.timer);
     this.timer = undefined;
+    const t0 = performance.now();
     mkdirSync(dirname(this.file), { recursive: true });
     // Written beside and renamed, so a reader never sees half a file.
     writeFileSync(`${this.file}.tmp`, JSON.stringify(this.state));
     renameSync(`${this.file}.tmp`, this.file);
+    this.lastFlushMs = performance.now() - t0;
   }
 }

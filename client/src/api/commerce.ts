@@ -47,6 +47,7 @@ export const staffOrdersApi = {
     return api.get<Page<OrderSummaryDto>>(`/staff/orders?${params}`);
   },
   get: (id: string) => api.get<OrderDto>(`/staff/orders/${encodeURIComponent(id)}`),
+  cancel: (id: string) => api.post<OrderDto>(`/staff/orders/${encodeURIComponent(id)}/cancel`, {}),
   refund: (id: string, body: { lines?: { orderLineId: string; quantity: number; restock: boolean }[]; restock?: boolean; reason?: string }) =>
     api.post<OrderDto>(`/staff/orders/${encodeURIComponent(id)}/refunds`, body),
 };
