@@ -28,7 +28,8 @@ export default defineConfig({
     compression({
       include: /\.(js|css|svg|json|ttf|eot|html)$/,
       exclude: /index\.html$/,
-      threshold: 1024,
+      // Every script, however small: a page loads a dozen chunks under 1 kB, each smaller compressed.
+      threshold: 0,
       algorithms: [defineAlgorithm('brotliCompress'), defineAlgorithm('gzip', { level: 9 })],
       deleteOriginalAssets: false,
     }),

@@ -235,7 +235,7 @@ export async function run(): Promise<void> {
     await measure(browser, floor.url, { ready: (p) => p.getByRole('heading', { level: 1 }).waitFor() }, null);
     for (const c of cases) await measure(browser, app.url, c, cookies);
 
-    console.log(`\nfirst load, cold cache, CPU ${cpuSlowdown}× slower; JS = script bytes over the wire; ${rounds} rounds`);
+    console.log(`\nfirst load, cold cache, CPU ${cpuSlowdown}× slower; JS = compressed script bodies (with response headers in brackets); ${rounds} rounds`);
     const floorRuns: Figures[] = [];
     const pageRuns = new Map<string, Figures[]>(cases.map((c) => [c.name, []]));
     const encodings = new Set<string>();
