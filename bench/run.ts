@@ -10,9 +10,10 @@ const benches: Record<string, () => Promise<void>> = {
   recommendations: async () => (await import('./recommendations.bench')).run(),
   'csv-import': async () => (await import('./csv-import.bench')).run(),
   checkout: async () => (await import('./checkout.bench')).run(),
+  pages: async () => (await import('./pages.bench')).run(),
 };
 // The app process opens its database at start, so every bench that starts it needs one.
-const needDatabase = new Set(['calculations', 'recommendations', 'csv-import', 'checkout']);
+const needDatabase = new Set(['calculations', 'recommendations', 'csv-import', 'checkout', 'pages']);
 
 const wanted = process.argv.slice(2).filter((a) => !a.startsWith('-'));
 const names = wanted.length ? wanted : Object.keys(benches);

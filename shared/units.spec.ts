@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { unit } from 'mathjs';
+import { convert, unitFactors, unitFactorsModule } from './unit-factors';
 import {
-  convert,
   ftLbfToNm,
   g,
   inToMm,
@@ -65,6 +65,13 @@ describe('mathjs cross-check (direct mathjs calls against the same NIST SP 811 f
     closeRel(unit(1, 'kgf').toNumber('N'), 9.80665, 1e-12);
     closeRel(unit(1, 'lb').toNumber('kg'), 0.4535924);
     closeRel(convert(58, 'N/mm', 'lbf/in'), unit(58, 'N/mm').toNumber('lbf/in'), 1e-12);
+  });
+
+  it('ships to browsers the very factors mathjs gives, as literals the client build puts in place of mathjs', async () => {
+    const shipped = (await import(`data:text/javascript,${encodeURIComponent(unitFactorsModule())}`)) as { unitFactors: typeof unitFactors };
+    expect(shipped.unitFactors).toEqual(unitFactors);
+    expect(shipped.unitFactors.nPerMmToLbfPerIn).toBe(unit(1, 'N/mm').toNumber('lbf/in'));
+    expect(shipped.unitFactors.kgToLb).toBe(unit(1, 'kg').toNumber('lb'));
   });
 
   it('refuses to turn a mass (lb) into a force (lbf)', () => {

@@ -1,45 +1,12 @@
-import { create, unitDependencies } from 'mathjs';
+import { unitFactors } from './unit-factors';
+
+export type { UnitName } from './unit-factors';
 
 /** Standard gravity in m/s², exact by definition (CGPM 1901). */
 export const g = 9.80665;
 
-// mathjs types its dependency maps as an index signature, hence the check.
-if (unitDependencies === undefined) throw new Error('mathjs unit dependencies are missing');
-// A private mathjs instance with only the unit machinery keeps the client bundle small.
-const math = create({ unitDependencies });
-
-/** Units the product shows to riders and staff. `lb` is mass, `lbf` is force (mathjs naming). */
-export type UnitName =
-  | 'kg'
-  | 'lb'
-  | 'mm'
-  | 'in'
-  | 'N'
-  | 'lbf'
-  | 'kgf'
-  | 'N/mm'
-  | 'kgf/mm'
-  | 'lbf/in'
-  | 'N*m'
-  | 'ft*lbf';
-
-/**
- * Converts a value between two units of the same dimension through mathjs.
- * Throws when the dimensions differ (e.g. `lb` to `lbf`).
- * @example convert(1, 'lbf/in', 'N/mm') // 0.175126835...
- */
-export function convert(value: number, from: UnitName, to: UnitName): number {
-  return math.unit(value, from).toNumber(to);
-}
-
-// Factors are taken from mathjs once so hot paths only multiply.
-const factor = (from: UnitName, to: UnitName): number => convert(1, from, to);
-const KG_TO_LB = factor('kg', 'lb');
-const MM_TO_IN = factor('mm', 'in');
-const N_TO_LBF = factor('N', 'lbf');
-const N_PER_MM_TO_KGF_PER_MM = factor('N/mm', 'kgf/mm');
-const N_PER_MM_TO_LBF_PER_IN = factor('N/mm', 'lbf/in');
-const NM_TO_FT_LBF = factor('N*m', 'ft*lbf');
+// Factors come from mathjs (unit-factors.ts), so these only multiply; the client gets them without mathjs itself.
+const { kgToLb: KG_TO_LB, mmToIn: MM_TO_IN, nToLbf: N_TO_LBF, nPerMmToKgfPerMm: N_PER_MM_TO_KGF_PER_MM, nPerMmToLbfPerIn: N_PER_MM_TO_LBF_PER_IN, nmToFtLbf: NM_TO_FT_LBF } = unitFactors;
 
 /** @example kgToLb(1) // 2.20462... */
 export const kgToLb = (kg: number): number => kg * KG_TO_LB;

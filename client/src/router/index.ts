@@ -1,4 +1,4 @@
-import { createRouter, createWebHistory, type LocationQueryRaw, type RouteLocationRaw, type RouteParamsRaw, type RouteRecordRaw } from 'vue-router';
+import { createRouter, createWebHistory, type LocationQueryRaw, type RouteLocationNormalized, type RouteLocationRaw, type RouteParamsRaw, type RouteRecordRaw } from 'vue-router';
 import type { Area } from '@shared/roles';
 import AppShell from '../layouts/AppShell.vue';
 import HomePage from '../pages/shop/HomePage.vue';
@@ -130,8 +130,19 @@ export const router = createRouter({
   scrollBehavior: () => ({ top: 0 }),
 });
 
+/** Starts fetching a public page's lazy chunks, so they download while the session is read rather than after. */
+function startLoading(target: RouteLocationNormalized): void {
+  if (target.matched.some((r) => r.meta.area)) return;
+  for (const record of target.matched) {
+    const view = record.components?.default;
+    // vue-router's own test: a lazy view is a function that is not a functional or class component. Its failure is the router's to report.
+    if (typeof view === 'function' && !('displayName' in view) && !('props' in view) && !('__vccOpts' in view)) (view as () => Promise<unknown>)().catch(() => undefined);
+  }
+}
+
 router.beforeEach(async (target) => {
   const session = useSessionStore();
+  startLoading(target);
   await session.restore();
   if (target.meta.guestOnly && session.user) return to('home');
   const area = target.meta.area;
