@@ -1,22 +1,15 @@
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { OrderDto } from '../shared/commerce/order.dto';
 import { AppDataSource } from '../server/db/data-source';
 import { shopSettingsChanged } from '../server/shop/shop-settings.service';
 import { userWithToken } from '../server/test/factories';
-import { paymentsApp, type PaymentsApp } from '../server/test/payments-standin';
+import { paymentsApp } from '../server/test/payments-standin';
 import { seedDemo } from './demo';
 import { seedDemoOrders } from './demo-orders';
-
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
 
 describe('the paid demo orders', () => {
   it('are paid on the local payment stand-in, so staff refund one there like any order', async () => {
     const a = await paymentsApp();
-    open.push(a);
     await AppDataSource.transaction((em) => seedDemo(em));
     shopSettingsChanged();
     expect(await seedDemoOrders(a.config)).toBe(2);

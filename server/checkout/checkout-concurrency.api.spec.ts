@@ -1,21 +1,15 @@
 import pg from 'pg';
 import request from 'supertest';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { AppDataSource } from '../db/data-source';
 import { paymentProviderFor } from '../payments/stripe-provider';
 import { address, plainProduct, stockOf } from '../test/commerce-factories';
-import { paymentsApp, type PaymentsApp } from '../test/payments-standin';
+import { paymentsApp } from '../test/payments-standin';
 import { sweepReservations } from './reservations';
-
-const open: PaymentsApp[] = [];
-afterAll(async () => {
-  for (const a of open) await a.close();
-});
 
 describe('checkout under load', () => {
   it('200 buyers on two app servers race for 10 units: exactly 10 reserve, 190 hear it is out of stock, stock never below 0, and every unit returns after expiry', async () => {
     const servers = [await paymentsApp(), await paymentsApp()];
-    open.push(...servers);
     const p = await plainProduct(10, 3_900, 'Last-batch shock spring');
     // 200 guest carts with one unit each, written directly: the race is the checkout, not the adding.
     const carts = (await AppDataSource.query(`INSERT INTO carts (user_id) SELECT NULL FROM generate_series(1, 200) RETURNING id`)) as { id: string }[];

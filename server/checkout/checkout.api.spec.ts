@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { CartDto } from '../../shared/commerce/cart.dto';
 import type { OrderDto } from '../../shared/commerce/order.dto';
 import type { RecommendationDto, ShockRecommendationDto, ForkRecommendationDto } from '../../shared/catalogue';
@@ -10,14 +10,8 @@ import { eventually, paymentsApp, payOnPage, type PaymentsApp } from '../test/pa
 import { sweepReservations } from './reservations';
 import { paymentProviderFor } from '../payments/stripe-provider';
 
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
 async function app() {
   const a = await paymentsApp();
-  open.push(a);
   return a;
 }
 const outbox = async (orderId: string) =>

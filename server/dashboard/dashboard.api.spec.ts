@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { DashboardDto } from '../../shared/admin/dashboard';
 import type { ForkRecommendationDto, RecommendationDto, ShockRecommendationDto } from '../../shared/catalogue';
 import { AppDataSource } from '../db/data-source';
@@ -8,12 +8,6 @@ import { address, load, plainProduct, shopWithSprings } from '../test/commerce-f
 import { userWithToken } from '../test/factories';
 import type { ExchangeDto } from '../../shared/commerce/exchange.dto';
 import { paymentsApp, type PaymentsApp } from '../test/payments-standin';
-
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
 
 const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
 
@@ -42,7 +36,6 @@ async function checkoutAndPay(a: PaymentsApp, agent: ReturnType<typeof request.a
 /** A few weeks of trade made through the cart, checkout and webhook, then spread over earlier days by moving paid_at. */
 async function seededHistory() {
   const a = await paymentsApp();
-  open.push(a);
   const shop = await shopWithSprings(a);
   const recommend = async () => (await a.http.post('/api/recommendations').send({ fitmentId: shop.fitment.id, ...load }).expect(200)).body as RecommendationDto;
   const orders: { id: string; daysAgo: number }[] = [];
@@ -184,7 +177,6 @@ describe('staff dashboard', () => {
 
   it('recommendations served count the answers the finder showed in the browser as well as the server’s, once each', async () => {
     const a = await paymentsApp();
-    open.push(a);
     const shop = await shopWithSprings(a);
     const staff = await userWithToken(a.config, 'staff');
     await flushRecommendationCounts();
@@ -206,7 +198,6 @@ describe('staff dashboard', () => {
 
   it('the low-stock list holds the active products at or under the shop’s threshold, lowest first', async () => {
     const a = await paymentsApp();
-    open.push(a);
     const staff = await userWithToken(a.config, 'staff');
     await plainProduct(0, 1_000, 'Empty shelf tool');
     await plainProduct(3, 1_000, 'Three left tool');
@@ -227,7 +218,6 @@ describe('staff dashboard', () => {
     ['a start that is not a date', { from: 'last week', to: day(0) }, 'from'],
   ])('a range with %s is a 400 naming the field', async (_what, query, field) => {
     const a = await paymentsApp();
-    open.push(a);
     const staff = await userWithToken(a.config, 'staff');
     const res = await a.http.get('/api/staff/dashboard').query(query).set(staff.auth);
     expect(res.status).toBe(400);

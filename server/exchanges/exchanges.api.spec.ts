@@ -7,12 +7,9 @@ import { checkSag } from '../../shared/engine';
 import { AppDataSource } from '../db/data-source';
 import { address, load, shopWithSprings, stockOf } from '../test/commerce-factories';
 import { createUser, testPassword, userWithToken } from '../test/factories';
-import { eventually, paymentsApp, payOnPage, type PaymentsApp } from '../test/payments-standin';
+import { eventually, paymentsApp, payOnPage } from '../test/payments-standin';
 
-let open: PaymentsApp[] = [];
 afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
   await AppDataSource.query(`UPDATE shop_settings SET exchange_window_days = 30`);
 });
 
@@ -25,7 +22,6 @@ const rearSagCheck = { end: 'rear', extendedMm: 600, staticMm: { down: 572, up: 
  */
 async function deliveredSpringOrder(deliveredDaysAgo = 2) {
   const a = await paymentsApp();
-  open.push(a);
   const shop = await shopWithSprings(a);
   const rec = (await a.http.post('/api/recommendations').send({ fitmentId: shop.fitment.id, ...load }).expect(200)).body as RecommendationDto;
   const fork = (rec.fork as ForkRecommendationDto).candidates.find((c) => c.verdict === 'ok')!;

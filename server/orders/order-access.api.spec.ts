@@ -1,22 +1,15 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { ForkRecommendationDto, RecommendationDto, ShockRecommendationDto } from '../../shared/catalogue';
 import type { OrderDto } from '../../shared/commerce/order.dto';
 import { AppDataSource } from '../db/data-source';
 import { address, load, shopWithSprings } from '../test/commerce-factories';
 import { createUser, testPassword, userWithToken } from '../test/factories';
-import { eventually, paymentsApp, payOnPage, type PaymentsApp } from '../test/payments-standin';
-
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
+import { eventually, paymentsApp, payOnPage } from '../test/payments-standin';
 
 /** A rider's paid order of a spring set (so it has a setup sheet), bought through the stand-in's payment page. */
 async function ridersSpringSetOrder() {
   const a = await paymentsApp();
-  open.push(a);
   const shop = await shopWithSprings(a);
   const rec = (await a.http.post('/api/recommendations').send({ fitmentId: shop.fitment.id, ...load }).expect(200)).body as RecommendationDto;
   const fork = (rec.fork as ForkRecommendationDto).candidates.find((c) => c.verdict === 'ok')!;

@@ -1,22 +1,15 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { OrderDto, OrderSummaryDto } from '../../shared/commerce/order.dto';
 import type { Page } from '../../shared/catalogue';
 import { AppDataSource } from '../db/data-source';
 import { address, plainProduct, stockOf } from '../test/commerce-factories';
 import { createUser, testPassword, userWithToken } from '../test/factories';
-import { eventually, paymentsApp, payOnPage, type PaymentsApp } from '../test/payments-standin';
-
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
+import { eventually, paymentsApp, payOnPage } from '../test/payments-standin';
 
 /** A paid order of two products (2 × 30.00 and 1 × 12.00) bought by a signed-in rider, through the stand-in's page. */
 async function paidOrder() {
   const a = await paymentsApp();
-  open.push(a);
   const rider = await createUser();
   const agent = request.agent(a.app);
   await agent.post('/api/auth/login').send({ email: rider.email, password: testPassword }).expect(200);

@@ -1,21 +1,14 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { OrderDto } from '../../shared/commerce/order.dto';
 import { AppDataSource } from '../db/data-source';
 import { address, ledgerSumOf, plainProduct, stockOf } from '../test/commerce-factories';
 import { userWithToken } from '../test/factories';
 import { eventually, paymentsApp, payOnPage, type PaymentsApp } from '../test/payments-standin';
 
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
-
 /** A guest's order of 2 × 30.00 waiting for its payment, with its payment page open on the stand-in. */
 async function pendingOrder() {
   const a = await paymentsApp();
-  open.push(a);
   const p = await plainProduct(5, 3_000, 'Preload collar');
   const guest = request.agent(a.app);
   await guest.post('/api/cart/lines').send({ productId: p.id, quantity: 2 }).expect(201);

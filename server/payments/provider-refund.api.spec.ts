@@ -1,21 +1,14 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { OrderDto } from '../../shared/commerce/order.dto';
 import { AppDataSource } from '../db/data-source';
 import { address, plainProduct, stockOf } from '../test/commerce-factories';
 import { userWithToken } from '../test/factories';
 import { eventually, paymentsApp, payOnPage, standinPort, type PaymentsApp } from '../test/payments-standin';
 
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
-
 /** A guest's paid order: 2 × 30.00 plus 6.90 shipping = 66.90, paid with the test card on the stand-in's page. */
 async function paidOrder() {
   const a = await paymentsApp();
-  open.push(a);
   const p = await plainProduct(5, 3_000, 'Preload collar');
   const guest = request.agent(a.app);
   await guest.post('/api/cart/lines').send({ productId: p.id, quantity: 2 }).expect(201);

@@ -1,18 +1,11 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { AppDataSource } from '../db/data-source';
 import { address, plainProduct } from '../test/commerce-factories';
 import { paymentsApp, type PaymentsApp } from '../test/payments-standin';
 
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
-
 async function pendingOrder() {
   const a = await paymentsApp();
-  open.push(a);
   const p = await plainProduct(5, 4_000);
   const guest = request.agent(a.app);
   await guest.post('/api/cart/lines').send({ productId: p.id, quantity: 1 }).expect(201);

@@ -1,19 +1,13 @@
 import { PDFParse } from 'pdf-parse';
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { RecommendationDto, ShockRecommendationDto, ForkRecommendationDto } from '../../shared/catalogue';
 import type { SetupSheetDto } from '../../shared/setup-sheet/setup-sheet.dto';
 import { torqueText } from '../../shared/setup-sheet/build';
 import { nmToFtLbf } from '../../shared/units';
 import { address, load, shopWithSprings } from '../test/commerce-factories';
 import { testApp } from '../test/factories';
-import { paymentsApp, type PaymentsApp } from '../test/payments-standin';
-
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
+import { paymentsApp } from '../test/payments-standin';
 
 /** The test bike's ladders, the recommendation for the shared test load, and the first ok spring at each end. */
 async function plan(t: ReturnType<typeof testApp>) {
@@ -125,7 +119,6 @@ describe('setup sheet', () => {
 
   it('an order\'s sheet shows the figures kept with its spring set, for its buyer\'s link only', async () => {
     const a = await paymentsApp();
-    open.push(a);
     const { fork, shock, fitment } = await plan(a);
     const agent = request.agent(a.app);
     await agent.post('/api/cart/spring-set').send({ fitmentId: fitment.id, ...load, forkProductId: fork.id, shockProductId: shock.id }).expect(201);

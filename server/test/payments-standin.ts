@@ -5,6 +5,7 @@ import type { Express } from 'express';
 import Stripe from 'stripe';
 import type { Config } from '../config';
 import { testApp } from './factories';
+import { onTestFinished } from 'vitest';
 
 /** The payment stand-in npm test runs (standins/payments), on STRIPE_API_PORT. */
 export const standinPort = Number(process.env.STRIPE_API_PORT ?? 8471);
@@ -26,19 +27,16 @@ export async function paymentsApp(overrides: Partial<Config> = {}) {
   const t = testApp({ stripeSecretKey: key, stripeApiPort: standinPort, stripeWebhookSecret: endpoint.secret!, publicOrigin: `http://127.0.0.1:${port}`, ...overrides });
   server.removeAllListeners('request');
   server.on('request', t.app as unknown as (req: unknown, res: unknown) => void);
-  return {
-    ...t,
-    server,
-    port,
-    stripe: admin,
-    secretKey: key,
-    webhookSecret: endpoint.secret!,
-    async close() {
+  let closing: Promise<void> | undefined;
+  const close = () =>
+    (closing ??= (async () => {
       await admin.webhookEndpoints.del(endpoint.id).catch(() => undefined);
       server.closeAllConnections();
       await new Promise((r) => server.close(r));
-    },
-  };
+    })());
+  // Closed when the test that opened it ends, so spec files keep no list of their own.
+  onTestFinished(close);
+  return { ...t, server, port, stripe: admin, secretKey: key, webhookSecret: endpoint.secret!, close };
 }
 
 /** Pays on the stand-in's page as a browser without JavaScript would: posts the form and reads the redirect. */

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { OrderDto } from '../../shared/commerce/order.dto';
 import type { PickListDto, WarehouseQueueDto } from '../../shared/warehouse/fulfilment.dto';
 import { AppDataSource } from '../db/data-source';
@@ -7,17 +7,10 @@ import { address, ledgerSumOf, plainProduct, stockOf } from '../test/commerce-fa
 import { createUser, testPassword, userWithToken } from '../test/factories';
 import { eventually, paymentsApp, payOnPage, type PaymentsApp } from '../test/payments-standin';
 
-let open: PaymentsApp[] = [];
-afterEach(async () => {
-  for (const a of open) await a.close();
-  open = [];
-});
-
 /** A rider's paid order of 2 preload collars and 1 seal kit, through the cart, checkout and the stand-in's payment page. */
 async function paidOrder(a?: PaymentsApp) {
   if (!a) {
     a = await paymentsApp();
-    open.push(a);
   }
   const rider = await createUser();
   const agent = request.agent(a.app);
@@ -162,7 +155,6 @@ describe('warehouse', () => {
   it('two warehouse users packing the same order at once: exactly one succeeds, the other hears it is already packed', async () => {
     const a = await paymentsApp();
     const b = await paymentsApp();
-    open.push(a, b);
     const { orderId, warehouse } = await paidOrder(a);
     const second = await userWithToken(a.config, 'warehouse');
     const list = (await a.http.get(`/api/warehouse/orders/${orderId}`).set(warehouse.auth)).body as PickListDto;
@@ -178,7 +170,6 @@ describe('warehouse', () => {
 
   it('an unpaid order is not the warehouse’s: 404', async () => {
     const a = await paymentsApp();
-    open.push(a);
     const rider = await createUser();
     const agent = request.agent(a.app);
     await agent.post('/api/auth/login').send({ email: rider.email, password: testPassword }).expect(200);
