@@ -26,16 +26,21 @@ async function timingQueries(fn: () => Promise<void>): Promise<Map<string, numbe
   proto.query = function (this: unknown, ...args: unknown[]) {
     const t0 = performance.now();
     const sql = typeof args[0] === 'string' ? args[0] : String((args[0] as { text?: string } | undefined)?.text ?? '');
-    const out = original.apply(this, args);
-    if (out && typeof (out as Promise<unknown>).then === 'function') {
-      (out as Promise<unknown>).then(
-        () => {
-          const k = labelOf(sql);
-          times.set(k, [...(times.get(k) ?? []), (performance.now() - t0) * 1000]);
-        },
-        () => undefined,
-      );
+    const done = () => {
+      const k = labelOf(sql);
+      times.set(k, [...(times.get(k) ?? []), (performance.now() - t0) * 1000]);
+    };
+    // The pool (prepared statements run on it) hands the client a callback; TypeORM awaits the promise.
+    const last = args.length - 1;
+    const callback = args[last];
+    if (typeof callback === 'function') {
+      args[last] = (err: unknown, res: unknown) => {
+        if (!err) done();
+        (callback as (e: unknown, r: unknown) => void)(err, res);
+      };
     }
+    const out = original.apply(this, args);
+    if (out && typeof (out as Promise<unknown>).then === 'function') (out as Promise<unknown>).then(done, () => undefined);
     return out;
   };
   try {

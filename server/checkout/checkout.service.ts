@@ -6,6 +6,7 @@ import type { CartOwner } from '../cart/cart-identity';
 import { Gate } from './gate';
 import type { Config } from '../config';
 import { AppDataSource } from '../db/data-source';
+import { preparedQuery } from '../db/prepared';
 import { AppError } from '../errors';
 import { orderAccessToken } from '../orders/order-access';
 import { lockOrder, moveOrder } from '../orders/order-moves';
@@ -134,7 +135,9 @@ export async function checkout(config: Config, provider: PaymentProvider, owner:
       reason: 'payment-unavailable',
     });
   }
-  await AppDataSource.query(
+  await preparedQuery(
+    AppDataSource.manager,
+    'checkout-save-payment-page',
     `UPDATE orders SET payment_session_id = $2, payment_url = $3, payment_intent_id = coalesce($4, payment_intent_id), updated_at = now() WHERE id = $1`,
     [order.id, session.id, session.url, session.paymentIntentId],
   );

@@ -5,6 +5,7 @@ import { lineTotalCents } from '../../shared/money';
 import type { CartLineRow } from '../cart/cart-dto';
 import type { CartOwner } from '../cart/cart-identity';
 import { SpringSet } from '../cart/SpringSet.entity';
+import { preparedQuery } from '../db/prepared';
 import { saleMovesCte } from '../orders/order-stock';
 import { lockedShelfJson, stockMovementCtes, type LockedShelf } from '../stock/stock-ledger';
 
@@ -20,7 +21,9 @@ export interface CartRead {
  * is looked up once, so the open-order check is an index lookup however many orders are pending.
  */
 export async function readCart(em: EntityManager, owner: CartOwner, lock: boolean): Promise<CartRead> {
-  const found = (await em.query(
+  const found = await preparedQuery<CartLineRow & { cart_id: string; has_pending: boolean }>(
+    em,
+    `checkout-read-cart-${owner.userId ? 'rider' : 'guest'}${lock ? '-locked' : ''}`,
     `WITH c AS (SELECT id FROM carts WHERE ${owner.userId ? 'user_id = $1' : 'id = $1 AND user_id IS NULL'} ${lock ? 'FOR UPDATE' : ''})
      SELECT c.id AS cart_id, EXISTS (SELECT 1 FROM orders o WHERE o.cart_id = (SELECT id FROM c) AND o.status = 'pending') AS has_pending,
             l.id, l.product_id, l.quantity, l.unit_price_cents, l.spring_set_id, l.verdict,
@@ -28,7 +31,7 @@ export async function readCart(em: EntityManager, owner: CartOwner, lock: boolea
        FROM c LEFT JOIN cart_lines l ON l.cart_id = c.id LEFT JOIN products p ON p.id = l.product_id
       ORDER BY l.spring_set_id NULLS LAST, l.created_at, p.sku`,
     [owner.userId ?? owner.guestCartId],
-  )) as (CartLineRow & { cart_id: string; has_pending: boolean })[];
+  );
   return {
     cartId: owner.userId || owner.guestCartId ? found[0]?.cart_id : undefined,
     hasPending: !!found[0]?.has_pending,
@@ -80,7 +83,9 @@ export async function placeOrder(em: EntityManager, input: PlaceOrderInput): Pro
   }));
   const asRead = rows.map((r) => `${r.id}:${r.quantity}:${r.unit_price_cents}`);
   const { totals } = input;
-  const [out] = (await em.query(
+  const [out] = await preparedQuery<{ cartOk: boolean; covered: boolean; shelf: LockedShelf[]; order: (Omit<PlacedOrder, 'reservedUntil'> & { reservedUntil: string }) | null }>(
+    em,
+    'checkout-place-order',
     `WITH cart AS (
        SELECT id FROM carts WHERE id = $2 FOR UPDATE
      ), cart_ok AS (
@@ -110,7 +115,7 @@ export async function placeOrder(em: EntityManager, input: PlaceOrderInput): Pro
     [input.owner.userId, input.cartId, input.email, input.customerName, JSON.stringify(input.shippingAddress), totals.currency,
       totals.subtotalCents, totals.shippingCents, totals.vatCents, totals.totalCents, input.vatRateBasisPoints, input.reservationMinutes,
       JSON.stringify(lines), input.orderId, asRead, input.owner.userId],
-  )) as { cartOk: boolean; covered: boolean; shelf: LockedShelf[]; order: (Omit<PlacedOrder, 'reservedUntil'> & { reservedUntil: string }) | null }[];
+  );
   if (out!.order) return { placed: true, order: { ...out!.order, reservedUntil: new Date(out!.order.reservedUntil) } };
   return { placed: false, cartUnchanged: out!.cartOk, covered: out!.covered, shelf: out!.shelf };
 }
