@@ -1,13 +1,15 @@
 import { defineStore } from 'pinia';
-import { computed, ref, watch } from 'vue';
+import { computed, ref, shallowRef, watch } from 'vue';
 import { luggageStations, type LuggageStation, type RidingStyle } from '@shared/catalogue/constants';
 import type { FitmentDto } from '@shared/catalogue/fitment.dto';
 import type { RecommendationDto } from '@shared/catalogue/recommendation.dto';
 import { riderRanges } from '@shared/catalogue/ranges';
 import type { EngineInputs } from '@shared/recommend/engine-input';
-import { recommendationInput, recommendFor, RecommendationProblem, type BikeForRecommendationDto } from '@shared/recommend/recommend';
+import type { BikeForRecommendationDto } from '@shared/recommend/recommend';
 import { shopApi, type RecommendationRequest } from '../api/shop';
 import { createShownBeacon } from '../shown-beacon';
+
+type Engine = typeof import('@shared/recommend/recommend');
 
 export type { LuggageStation };
 const key = 'loadline.plan';
@@ -137,19 +139,28 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
     return out;
   }
 
+  /** The engine, in its own chunk fetched beside the first bike: the finder's first paint does not carry it. */
+  const engine = shallowRef<Engine | null>(null);
+  let engineLoad: Promise<Engine> | undefined;
+  function loadEngine(): Promise<Engine> {
+    engineLoad ??= import('@shared/recommend/recommend').then((m) => (engine.value = m));
+    return engineLoad;
+  }
+
   function answerFor(withCases: boolean): LiveAnswer {
     const body = requestBody();
-    if (!bike.value || !body || bike.value.fitment.id !== body.fitmentId) return {};
+    const e = engine.value;
+    if (!e || !bike.value || !body || bike.value.fitment.id !== body.fitmentId) return {};
     const cases = withCases ? sentCases.value : undefined;
     const fields = { ...riderProblems('', body.rider), ...Object.assign({}, ...(cases ?? []).map((c, i) => riderProblems(`cases.${i}.`, c.rider))) };
     if (Object.keys(fields).length) return { fields };
     try {
       // The checks above leave no empty rider mass.
       const sendable = cases?.map((c) => ({ ...c, rider: { ...c.rider, massKg: c.rider.massKg! } }));
-      return { result: recommendFor(bike.value, { ...body, rider: { ...body.rider, massKg: body.rider.massKg! }, ...(sendable ? { cases: sendable } : {}) }) };
-    } catch (e) {
-      if (e instanceof RecommendationProblem) return { problem: e.message, fields: e.fields };
-      return { problem: e instanceof Error ? e.message : 'This load cannot be worked out.' };
+      return { result: e.recommendFor(bike.value, { ...body, rider: { ...body.rider, massKg: body.rider.massKg! }, ...(sendable ? { cases: sendable } : {}) }) };
+    } catch (err) {
+      if (err instanceof e.RecommendationProblem) return { problem: err.message, fields: err.fields };
+      return { problem: err instanceof Error ? err.message : 'This load cannot be worked out.' };
     }
   }
 
@@ -160,9 +171,10 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
   /** The engine input behind `live` (loads placed, targets, springs): the sag chart sweeps it. */
   const liveInputs = computed<EngineInputs | null>(() => {
     const body = requestBody();
-    if (!live.value.result || !bike.value || !body) return null;
+    const e = engine.value;
+    if (!e || !live.value.result || !bike.value || !body) return null;
     try {
-      return recommendationInput(bike.value, { ...body, rider: { ...body.rider, massKg: body.rider.massKg! } }).inputs;
+      return e.recommendationInput(bike.value, { ...body, rider: { ...body.rider, massKg: body.rider.massKg! } }).inputs;
     } catch {
       return null;
     }
@@ -186,7 +198,7 @@ export const useRiderPlanStore = defineStore('rider-plan', () => {
 
   async function loadBike(id: string): Promise<void> {
     if (bike.value?.fitment.id === id) return;
-    const b = await shopApi.bike(id);
+    const [b] = await Promise.all([shopApi.bike(id), loadEngine()]);
     if (plan.value.fitmentId === id) bike.value = b;
   }
 
